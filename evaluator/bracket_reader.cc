@@ -174,9 +174,6 @@ struct BracketReader::Impl {
           fail(l, cl, "expected '(' or ')' inside " + open_desc(out, top) + " but found word " +
                           quote_for_message(atom) + " (a word must be the only child of its tag)");
         }
-        if (node.label == LabelTable::kEmpty) {
-          fail(l, cl, "word " + quote_for_message(atom) + " has no tag; expected '(TAG word)'");
-        }
         out.add_leaf(atom, top.node);
       }
     }
