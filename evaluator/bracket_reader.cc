@@ -1,3 +1,4 @@
+#include <algorithm>
 #include <fstream>
 #include <sstream>
 
@@ -8,7 +9,8 @@ namespace treegate {
 namespace {
 
 constexpr int kEof = -1;
-constexpr std::size_t kChunk = 1 << 20;
+constexpr std::size_t kFirstChunk = 4096;  // small first reads: parse_tree on short strings
+constexpr std::size_t kChunk = 1 << 20;    // doubled up to this for large files
 
 bool is_space(int c) { return c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v'; }
 bool is_delim(int c) { return c == '(' || c == ')' || is_space(c) || c == kEof || c == 0; }
@@ -27,6 +29,7 @@ struct BracketReader::Impl {
   ReadLimits limits;
   std::string buf;
   std::size_t pos = 0;
+  std::size_t chunk = kFirstChunk;
   std::size_t line = 1, col = 1;
   std::size_t trees = 0;
   std::size_t tree_line = 0;
@@ -38,8 +41,9 @@ struct BracketReader::Impl {
       : in(i), source(std::move(s)), labels(l), limits(lim) {}
 
   bool refill() {
-    buf.resize(kChunk);
-    in.read(buf.data(), static_cast<std::streamsize>(kChunk));
+    buf.resize(chunk);
+    in.read(buf.data(), static_cast<std::streamsize>(chunk));
+    chunk = std::min(chunk * 2, kChunk);
     buf.resize(static_cast<std::size_t>(in.gcount()));
     pos = 0;
     return !buf.empty();
