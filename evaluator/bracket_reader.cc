@@ -1,3 +1,4 @@
+#include <algorithm>
 #include <fstream>
 #include <sstream>
 
@@ -8,7 +9,8 @@ namespace treegate {
 namespace {
 
 constexpr int kEof = -1;
-constexpr std::size_t kChunk = 1 << 20;
+constexpr std::size_t kFirstChunk = 4096;  // small first reads: parse_tree on short strings
+constexpr std::size_t kChunk = 1 << 20;    // doubled up to this for large files
 constexpr std::size_t kCacheSlots = 4096;  // a power of two
 
 bool is_space(int c) { return c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v'; }
@@ -37,6 +39,7 @@ struct BracketReader::Impl {
   ReadLimits limits;
   std::string buf;
   std::size_t pos = 0;
+  std::size_t chunk = kFirstChunk;
   std::size_t line = 1, col = 1;
   std::size_t trees = 0;
   std::size_t tree_line = 0;
@@ -49,15 +52,16 @@ struct BracketReader::Impl {
     std::string name;
     LabelId id = LabelTable::kNone;
   };
-  std::vector<CacheSlot> cache = std::vector<CacheSlot>(kCacheSlots);
+  std::vector<CacheSlot> cache;  // allocated from the second tree on (parse_tree reads one)
   std::size_t cached = 0;
 
   Impl(std::istream& i, std::string s, LabelTable& l, ReadLimits lim)
       : in(i), source(std::move(s)), labels(l), limits(lim) {}
 
   bool refill() {
-    buf.resize(kChunk);
-    in.read(buf.data(), static_cast<std::streamsize>(kChunk));
+    buf.resize(chunk);
+    in.read(buf.data(), static_cast<std::streamsize>(chunk));
+    chunk = std::min(chunk * 2, kChunk);
     buf.resize(static_cast<std::size_t>(in.gcount()));
     pos = 0;
     return !buf.empty();
@@ -121,6 +125,8 @@ struct BracketReader::Impl {
   }
 
   LabelId intern_atom(std::string_view name) {
+    if (trees < 2) return labels.intern(name);
+    if (cache.empty()) cache.resize(kCacheSlots);
     std::uint64_t h = 1469598103934665603ull;
     for (unsigned char c : name) h = (h ^ c) * 1099511628211ull;
     for (std::size_t i = h & (kCacheSlots - 1);; i = (i + 1) & (kCacheSlots - 1)) {
