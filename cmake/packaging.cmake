@@ -20,10 +20,11 @@ set(CPACK_PACKAGE_VERSION ${PROJECT_VERSION})
 set(CPACK_PACKAGE_VENDOR "The treegate authors")
 set(CPACK_PACKAGE_CONTACT "The treegate authors <treegate@localhost>")
 set(CPACK_PACKAGE_DESCRIPTION_SUMMARY "regression-test harness for probabilistic context-free grammars")
-set(CPACK_PACKAGE_DESCRIPTION
-    "treegate parses curated suites of gold trees with a grammar (built-in CKY/Viterbi parser or an "
-    "external command), scores them with labeled PARSEVAL, compares against a baseline run and "
-    "gates CI with JUnit XML and HTML reports.")
+set(CPACK_DEBIAN_PACKAGE_DESCRIPTION
+    "regression-test harness for probabilistic context-free grammars
+ treegate parses curated suites of gold trees with a grammar (its own CKY/Viterbi
+ parser or an external command), scores them with labeled PARSEVAL, compares the
+ run with a baseline run and gates CI with JUnit XML and HTML reports.")
 set(CPACK_RESOURCE_FILE_LICENSE ${CMAKE_SOURCE_DIR}/LICENSE)
 set(CPACK_PACKAGING_INSTALL_PREFIX /usr)
 set(CPACK_DEBIAN_FILE_NAME DEB-DEFAULT)
@@ -32,4 +33,5 @@ set(CPACK_DEBIAN_PACKAGE_PRIORITY optional)
 # Depends: one entry per shared library of the binary, via dpkg-shlibdeps (package dpkg-dev).
 set(CPACK_DEBIAN_PACKAGE_SHLIBDEPS ON)
 set(CPACK_STRIP_FILES ON)
+set(CPACK_DEBIAN_COMPRESSION_TYPE gzip)
 include(CPack)
