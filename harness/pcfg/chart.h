@@ -1,8 +1,8 @@
 // The CKY chart of a Parser (private to the parser's .cc files). Each cell keeps its present
-// symbols in a compact list with their values (post unary closure); a dense slot index per
-// (cell, symbol) finds them. Memory: 4 bytes x symbols per cell plus ~44 bytes per present
-// symbol; the slot index is reset by walking the lists, so a sentence touches only what it
-// uses. Owned by one Parser; not thread-safe.
+// symbols in a compact list with their values (post unary closure). Symbols that are right
+// children of binary rules (few: the grammar's right ids) are found through a small per-cell
+// index; others by scanning the cell's list. Memory: ~44 bytes per present symbol plus
+// ~4.1 bytes per (cell, right id). Owned by one Parser; not thread-safe.
 #pragma once
 
 #include <cstdint>
@@ -34,18 +34,19 @@ struct Back {
 };
 
 struct Chart {
-  std::size_t n = 0;                // words
-  std::size_t symbols = 0;          // grammar symbols
-  std::vector<std::uint32_t> slot;  // (cell, symbol) -> index into lists/entries/backs
-  std::vector<std::uint64_t> bits;  // (cell, symbol) presence, 1 bit each (cache-friendly test)
-  std::size_t words_per_cell = 0;   // 64-bit words of `bits` per cell
-  std::vector<double> scale;        // per cell: log of the inside scale factor
+  std::size_t n = 0;        // words
+  std::size_t symbols = 0;  // grammar symbols
+  const CompiledGrammar* grammar = nullptr;
+  // Per cell, over the grammar's right ids (symbols that are right children): presence bits and
+  // the index of the entry; rewritten whole when the cell is closed, so never reset.
+  std::vector<std::uint64_t> right_bits;
+  std::vector<std::uint32_t> right_slot;
+  std::vector<double> scale;  // per cell: log of the inside scale factor
   std::vector<std::uint32_t> list_begin, list_end;
   std::vector<Symbol> lists;  // present symbols of every cell
   std::vector<Entry> entries;
   std::vector<Back> backs;
   std::vector<std::vector<LexEntry>> lex;  // pre-unary entries of each word
-  bool dirty = false;                      // slots of the last sentence not yet reset
   // Scratch for the pre-unary values of the cell being filled.
   struct Pre {
     Entry value;
@@ -53,6 +54,7 @@ struct Chart {
   };
   std::vector<Pre> pre;
   std::vector<std::uint32_t> stamp;
+  std::vector<std::uint32_t> post_at, post_stamp;  // symbol -> its entry in the cell being closed
   std::uint32_t stamp_now = 0;
   std::vector<Symbol> touched;  // sized to the symbols; the first `touched_count` are used
   std::size_t touched_count = 0;
@@ -60,7 +62,19 @@ struct Chart {
   std::size_t cell(std::size_t i, std::size_t j) const {
     return i * n - i * (i - 1) / 2 + (j - i - 1);
   }
-  std::uint32_t index(std::size_t c, Symbol s) const { return slot[c * symbols + s]; }
+  /// Index of (cell c, symbol s) in lists/entries/backs, or kAbsent.
+  std::uint32_t index(std::size_t c, Symbol s) const {
+    const std::uint32_t id = grammar->right_id(s);
+    if (id != kNoSymbol) {
+      const std::size_t words = grammar->right_words();
+      if (!((right_bits[c * words + id / 64] >> (id % 64)) & 1u)) return kAbsent;
+      return right_slot[c * grammar->num_right() + id];
+    }
+    for (std::uint32_t li = list_begin[c]; li < list_end[c]; ++li) {
+      if (lists[li] == s) return li;
+    }
+    return kAbsent;
+  }
   bool has(std::size_t c, Symbol s) const { return index(c, s) != kAbsent; }
   const Entry& entry(std::size_t c, Symbol s) const { return entries[index(c, s)]; }
   const Back& back(std::size_t c, Symbol s) const { return backs[index(c, s)]; }

@@ -126,6 +126,24 @@ void CompiledGrammar::finish_binary() {
   }
   staged_.clear();
   staged_.shrink_to_fit();
+  right_id_.assign(names_.size(), kNoSymbol);
+  for (const auto& groups : groups_) {
+    for (const RightGroup& g : groups) {
+      if (right_id_[g.right] == kNoSymbol)
+        right_id_[g.right] = static_cast<std::uint32_t>(num_right_++);
+    }
+  }
+  right_mask_.assign(names_.size() * right_words(), 0);
+  for (Symbol left = 0; left < names_.size(); ++left) {
+    auto& groups = groups_[left];
+    std::sort(groups.begin(), groups.end(), [&](const RightGroup& a, const RightGroup& b) {
+      return right_id_[a.right] < right_id_[b.right];
+    });
+    for (const RightGroup& g : groups) {
+      const std::uint32_t id = right_id_[g.right];
+      right_mask_[left * right_words() + id / 64] |= std::uint64_t{1} << (id % 64);
+    }
+  }
 }
 
 const std::vector<LexEntry>* CompiledGrammar::lexicon(const std::string& word) const {

@@ -8,6 +8,7 @@
 #include <queue>
 #include <set>
 #include <unordered_map>
+#include <unordered_set>
 
 #include "harness/pcfg/chart.h"
 #include "harness/pcfg/parser.h"
@@ -67,6 +68,16 @@ class KBest {
   }
 
  private:
+  /// Presence of a symbol in a cell, through a per-cell index built on first use.
+  bool has(std::size_t cell, Symbol s) {
+    auto [it, fresh] = present_.try_emplace(cell);
+    if (fresh) {
+      for (std::uint32_t li = c_.list_begin[cell]; li < c_.list_end[cell]; ++li)
+        it->second.insert(c_.lists[li]);
+    }
+    return it->second.count(s) > 0;
+  }
+
   double best(const NodeKey& v) const {
     if (v.post) return c_.entry(c_.cell(v.i, v.j), v.s).vit;
     return pre_vit(c_, g_, v.i, v.j, v.s);
@@ -90,7 +101,7 @@ class KBest {
       for (std::uint32_t k = v.i + 1; k < v.j; ++k) {
         const std::size_t left = c_.cell(v.i, k), right = c_.cell(k, v.j);
         for (const auto& r : g_.rules_of(v.s)) {
-          if (c_.has(left, r.left) && c_.has(right, r.right)) {
+          if (has(left, r.left) && has(right, r.right)) {
             st.edges.push_back(
                 {r.logp, {{v.i, k, r.left, true}, {k, v.j, r.right, true}}, 2, r.target});
           }
@@ -133,6 +144,7 @@ class KBest {
   const Chart& c_;
   const CompiledGrammar& g_;
   std::unordered_map<std::uint64_t, NodeState> nodes_;
+  std::unordered_map<std::size_t, std::unordered_set<Symbol>> present_;
 };
 
 }  // namespace

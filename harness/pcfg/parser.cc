@@ -4,6 +4,7 @@
 // estimate that tells whether they fit.
 #include "harness/pcfg/parser.h"
 
+#include <bit>
 #include <chrono>
 #include <cmath>
 #include <limits>
@@ -20,19 +21,22 @@ constexpr std::size_t kPresentBytes = sizeof(Symbol) + sizeof(Entry) + sizeof(Ba
 }  // namespace
 
 std::size_t chart_bytes(const CompiledGrammar& grammar, std::size_t words) {
-  // The slot index is dense; present symbols are counted as a quarter of all (typical of
-  // treebank grammars); the fill stops when the real count passes the cap.
+  // The right-id index is dense; present symbols are estimated as a tenth of all (treebank
+  // grammars fill less); the fill stops when the real size passes the cap.
   const std::size_t cells = words * (words + 1) / 2;
-  return cells * grammar.num_symbols() * (sizeof(std::uint32_t) + kPresentBytes / 4);
+  return cells * (grammar.num_right() * sizeof(std::uint32_t) + grammar.right_words() * 8 +
+                  grammar.num_symbols() * kPresentBytes / 10);
 }
 
 Parser::Parser(std::shared_ptr<const CompiledGrammar> grammar)
     : grammar_(std::move(grammar)), chart_(std::make_unique<Chart>()) {
   Chart& c = *chart_;
   c.symbols = grammar_->num_symbols();
-  c.words_per_cell = (c.symbols + 63) / 64;
   c.pre.resize(c.symbols);
   c.stamp.assign(c.symbols, 0);
+  c.post_at.assign(c.symbols, 0);
+  c.post_stamp.assign(c.symbols, 0);
+  c.grammar = grammar_.get();
   c.touched.resize(c.symbols);
 }
 
@@ -47,6 +51,7 @@ class Filler {
   void start_cell() {
     if (++c_.stamp_now == 0) {
       std::fill(c_.stamp.begin(), c_.stamp.end(), 0);
+      std::fill(c_.post_stamp.begin(), c_.post_stamp.end(), 0);
       c_.stamp_now = 1;
     }
     c_.touched_count = 0;
@@ -90,47 +95,56 @@ class Filler {
     Symbol* touched = c_.touched.data();
     std::size_t touched_count = c_.touched_count;
     const std::uint32_t now = c_.stamp_now;
+    const std::size_t words = g_.right_words();
     for (std::size_t k = i + 1; k < j; ++k) {
       const std::size_t left = c_.cell(i, k), right = c_.cell(k, j);
       if (c_.list_begin[left] == c_.list_end[left] || c_.list_begin[right] == c_.list_end[right])
         continue;
       const double factor = std::exp(c_.scale[left] + c_.scale[right] - top);
-      const std::uint32_t* rslot = &c_.slot[right * c_.symbols];
-      const std::uint64_t* rbits = &c_.bits[right * c_.words_per_cell];
+      const std::uint64_t* rbits = &c_.right_bits[right * words];
+      const std::uint32_t* rslot = &c_.right_slot[right * g_.num_right()];
       const auto split = static_cast<std::uint32_t>(k);
       for (std::uint32_t li = c_.list_begin[left]; li < c_.list_end[left]; ++li) {
-        const auto& groups = g_.groups(lists[li]);
-        if (groups.empty()) continue;
+        const Symbol b = lists[li];
+        const RightGroup* groups = g_.groups(b).data();
+        if (groups == nullptr) continue;
+        const std::uint64_t* mask = g_.right_mask(b);
         const Entry& lb = entries[li];
         const double lins = lb.ins * factor;
-        for (const RightGroup& grp : groups) {
-          const Symbol r = grp.right;
-          if (!((rbits[r >> 6] >> (r & 63)) & 1u)) continue;
-          const Entry& rc = entries[rslot[r]];
-          const double vit = lb.vit + rc.vit;
-          const double ins = lins * rc.ins;
-          const double cnt = lb.cnt * rc.cnt;
-          const std::uint64_t cnt64 = lb.cnt64 * rc.cnt64;
-          applications += grp.end - grp.begin;
-          for (std::uint32_t t = grp.begin; t < grp.end; ++t) {
-            const BinaryTarget& target = targets[t];
-            const Symbol a = target.lhs;
-            Chart::Pre& p = pre[a];
-            if (stamp[a] != now) {
-              stamp[a] = now;
-              p.value = {kNegInf, 0.0, 0.0, 0};
-              touched[touched_count++] = a;
+        std::uint32_t base = 0;
+        for (std::size_t w = 0; w < words; ++w) {
+          const std::uint64_t gw = mask[w];
+          for (std::uint64_t m = gw & rbits[w]; m != 0; m &= m - 1) {
+            const int bit = std::countr_zero(m);
+            const RightGroup& grp = groups[base + static_cast<std::uint32_t>(std::popcount(
+                                                      gw & ((std::uint64_t{1} << bit) - 1)))];
+            const Entry& rc = entries[rslot[w * 64 + static_cast<std::size_t>(bit)]];
+            const double vit = lb.vit + rc.vit;
+            const double ins = lins * rc.ins;
+            const double cnt = lb.cnt * rc.cnt;
+            const std::uint64_t cnt64 = lb.cnt64 * rc.cnt64;
+            applications += grp.end - grp.begin;
+            for (std::uint32_t t = grp.begin; t < grp.end; ++t) {
+              const BinaryTarget& target = targets[t];
+              const Symbol a = target.lhs;
+              Chart::Pre& p = pre[a];
+              if (stamp[a] != now) {
+                stamp[a] = now;
+                p.value = {kNegInf, 0.0, 0.0, 0};
+                touched[touched_count++] = a;
+              }
+              const double v = vit + target.logp;
+              if (v > p.value.vit) {
+                p.value.vit = v;
+                p.rule = t;
+                p.split = split;
+              }
+              p.value.ins += ins * target.p;
+              p.value.cnt += cnt;
+              p.value.cnt64 += cnt64;
             }
-            const double v = vit + target.logp;
-            if (v > p.value.vit) {
-              p.value.vit = v;
-              p.rule = t;
-              p.split = split;
-            }
-            p.value.ins += ins * target.p;
-            p.value.cnt += cnt;
-            p.value.cnt64 += cnt64;
           }
+          base += static_cast<std::uint32_t>(std::popcount(gw));
         }
       }
     }
@@ -140,8 +154,12 @@ class Filler {
 
   /// Applies the unary closure to the touched pre-unary symbols, appending the cell's list.
   void close(std::size_t cell) {
-    std::uint32_t* slot = &c_.slot[cell * c_.symbols];
-    std::uint64_t* bits = &c_.bits[cell * c_.words_per_cell];
+    std::uint32_t* post_at = c_.post_at.data();
+    std::uint32_t* post_stamp = c_.post_stamp.data();
+    const std::uint32_t now = c_.stamp_now;
+    std::uint64_t* rbits = &c_.right_bits[cell * g_.right_words()];
+    std::uint32_t* rslot = &c_.right_slot[cell * g_.num_right()];
+    std::fill_n(rbits, g_.right_words(), 0);
     const auto begin = static_cast<std::uint32_t>(c_.lists.size());
     c_.list_begin[cell] = begin;
     for (std::size_t ti = 0; ti < c_.touched_count; ++ti) {
@@ -149,10 +167,14 @@ class Filler {
       const Entry pre = c_.pre[b].value;
       for (const UnaryLink& link : g_.unary_above(b)) {
         const Symbol a = link.top;
-        std::uint32_t at = slot[a];
-        if (at == kAbsent) {
-          at = slot[a] = static_cast<std::uint32_t>(c_.lists.size());
-          bits[a >> 6] |= std::uint64_t{1} << (a & 63);
+        std::uint32_t at = post_at[a];
+        if (post_stamp[a] != now) {
+          post_stamp[a] = now;
+          at = post_at[a] = static_cast<std::uint32_t>(c_.lists.size());
+          if (const std::uint32_t id = g_.right_id(a); id != kNoSymbol) {
+            rbits[id / 64] |= std::uint64_t{1} << (id % 64);
+            rslot[id] = at;
+          }
           c_.lists.push_back(a);
           c_.entries.push_back({kNegInf, 0.0, 0.0, 0});
           c_.backs.push_back({kNotPre, 0, a});
@@ -167,7 +189,7 @@ class Filler {
         e.cnt += pre.cnt * link.count;
         e.cnt64 += pre.cnt64 * link.count64;
       }
-      Back& back = c_.backs[slot[b]];  // the empty chain made b present
+      Back& back = c_.backs[post_at[b]];  // the empty chain made b present
       back.rule = c_.pre[b].rule;
       back.split = c_.pre[b].split;
     }
@@ -186,25 +208,11 @@ class Filler {
   const CompiledGrammar& g_;
 };
 
-/// Resets the slots the last sentence set (the rest of the index is always kAbsent).
-void clean(Chart& c) {
-  if (!c.dirty) return;
-  const std::size_t cells = c.n * (c.n + 1) / 2;
-  for (std::size_t cell = 0; cell < cells && cell < c.list_end.size(); ++cell) {
-    for (std::uint32_t li = c.list_begin[cell]; li < c.list_end[cell]; ++li) {
-      c.slot[cell * c.symbols + c.lists[li]] = kAbsent;
-    }
-    std::fill_n(&c.bits[cell * c.words_per_cell], c.words_per_cell, 0);
-  }
-  c.dirty = false;
-}
-
-void prepare(Chart& c, std::size_t n) {
-  clean(c);
+void prepare(Chart& c, const CompiledGrammar& g, std::size_t n) {
   c.n = n;
   const std::size_t cells = n * (n + 1) / 2;
-  if (c.slot.size() < cells * c.symbols) c.slot.resize(cells * c.symbols, kAbsent);
-  if (c.bits.size() < cells * c.words_per_cell) c.bits.resize(cells * c.words_per_cell, 0);
+  c.right_bits.resize(std::max(c.right_bits.size(), cells * g.right_words()));
+  c.right_slot.resize(std::max(c.right_slot.size(), cells * g.num_right()));
   c.scale.assign(cells, 0.0);
   c.list_begin.assign(cells, 0);
   c.list_end.assign(cells, 0);
@@ -212,7 +220,6 @@ void prepare(Chart& c, std::size_t n) {
   c.entries.clear();
   c.backs.clear();
   c.lex.resize(n);
-  c.dirty = true;
 }
 
 std::string over_cap(std::size_t n, std::size_t bytes, std::size_t cap, std::size_t span) {
@@ -241,7 +248,7 @@ ParseResult Parser::parse(const std::vector<std::string>& words,
     return finish();
   }
   Chart& c = *chart_;
-  prepare(c, n);
+  prepare(c, g, n);
   Filler fill(c, g);
   for (std::size_t i = 0; i < n; ++i) {
     c.lex[i] = lexical_entries(g, words, tags, options, i);
@@ -249,7 +256,7 @@ ParseResult Parser::parse(const std::vector<std::string>& words,
     for (const LexEntry& e : c.lex[i]) fill.lexical(i, e.symbol, e.logp, e.p);
     fill.close(c.cell(i, i + 1));
   }
-  const std::size_t dense = c.slot.size() * sizeof(std::uint32_t);
+  const std::size_t dense = c.right_slot.size() * sizeof(std::uint32_t) + c.right_bits.size() * 8;
   for (std::size_t span = 2; span <= n; ++span) {
     for (std::size_t i = 0; i + span <= n; ++i) {
       const std::size_t cell = c.cell(i, i + span);
@@ -261,12 +268,10 @@ ParseResult Parser::parse(const std::vector<std::string>& words,
     if (bytes > options.max_chart_bytes) {
       result.status = ParseStatus::error;
       result.reason = over_cap(n, bytes, options.max_chart_bytes, span);
-      clean(c);
       return finish();
     }
   }
   fill_outcome(c, g, words, options, result);
-  clean(c);
   return finish();
 }
 
