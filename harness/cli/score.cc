@@ -34,9 +34,12 @@ int run_score(int argc, char** argv) {
     if (!g) return fail("score", gold + ": cannot open file for reading");
     if (!t) return fail("score", test + ": cannot open file for reading");
     std::vector<report::ScoredSentence> sentences;
+    // Keep every sentence only when it is listed; otherwise only the errors (flat memory).
+    const bool list_all = format == "json" || vm.count("per-sentence") > 0;
     auto keep = [&](std::size_t index, const SentenceScore& s) {
-      report::ScoredSentence item{index, s};
-      sentences.push_back(std::move(item));
+      if (list_all || s.status == SentenceStatus::kYieldMismatch || s.status == SentenceStatus::kError) {
+        sentences.push_back({index, s});
+      }
     };
     Tally tally = score_streams(g, gold, t, test, scheme, keep);
     report::ScoreRun run{gold, test, std::move(tally), std::move(sentences)};
