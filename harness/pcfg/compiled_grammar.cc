@@ -87,18 +87,19 @@ void CompiledGrammar::add_rule(const Rule& rule) {
     }
     syms.push_back(s);
   }
-  // Right-factored binarization; the intermediate for a suffix is shared by every rule that
-  // ends with that suffix, so it derives exactly the splits of its span into that suffix.
-  Symbol right = syms.back();
-  for (std::size_t k = syms.size() - 2; k >= 1; --k) {
-    std::string name = "@";
-    for (std::size_t i = k; i < syms.size(); ++i) name += (i > k ? "\x1f" : "") + names_[syms[i]];
+  // Left-factored binarization; the intermediate for a prefix is shared by every rule that
+  // starts with that prefix, so it derives exactly the splits of its span into that prefix.
+  // (Left factoring keeps the right children real symbols: fewer rule groups per left child.)
+  Symbol left = syms[0];
+  std::string name = "@" + names_[syms[0]];
+  for (std::size_t k = 1; k + 1 < syms.size(); ++k) {
+    name += "\x1f" + names_[syms[k]];
     const std::size_t before = names_.size();
     const Symbol mid = intern(name, 1);
-    if (names_.size() != before) add_binary(mid, syms[k], right, 1.0);
-    right = mid;
+    if (names_.size() != before) add_binary(mid, left, syms[k], 1.0);
+    left = mid;
   }
-  add_binary(lhs, syms[0], right, p);
+  add_binary(lhs, left, syms.back(), p);
 }
 
 void CompiledGrammar::add_binary(Symbol lhs, Symbol left, Symbol right, double p) {

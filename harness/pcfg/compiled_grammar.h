@@ -64,6 +64,7 @@ class CompiledGrammar {
 
   const std::vector<RightGroup>& groups(Symbol left) const { return groups_[left]; }
   const BinaryTarget& target(std::uint32_t i) const { return targets_[i]; }
+  const BinaryTarget* targets() const { return targets_.data(); }
   std::size_t num_binary_rules() const { return targets_.size(); }
   /// (left, right) children of binary target `i`.
   std::pair<Symbol, Symbol> children(std::uint32_t i) const { return children_[i]; }

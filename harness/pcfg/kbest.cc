@@ -68,21 +68,18 @@ class KBest {
 
  private:
   double best(const NodeKey& v) const {
-    if (v.post) return c_.entry[c_.at(c_.cell(v.i, v.j), v.s)].vit;
+    if (v.post) return c_.entry(c_.cell(v.i, v.j), v.s).vit;
     return pre_vit(c_, g_, v.i, v.j, v.s);
   }
 
   void init(const NodeKey& v, NodeState& st) {
     const std::size_t cell = c_.cell(v.i, v.j);
     if (v.post) {
-      for (std::size_t w = 0; w < c_.words_per_cell; ++w) {
-        for (std::uint64_t bits = c_.prebits[cell * c_.words_per_cell + w]; bits;
-             bits &= bits - 1) {
-          const Symbol b =
-              static_cast<Symbol>(w * 64 + static_cast<std::size_t>(__builtin_ctzll(bits)));
-          for (const UnaryLink& link : g_.unary_above(b)) {
-            if (link.top == v.s) st.edges.push_back({link.logp, {{v.i, v.j, b, false}, {}}, 1, 0});
-          }
+      for (std::uint32_t li = c_.list_begin[cell]; li < c_.list_end[cell]; ++li) {
+        if (c_.backs[li].rule == kNotPre) continue;
+        const Symbol b = c_.lists[li];
+        for (const UnaryLink& link : g_.unary_above(b)) {
+          if (link.top == v.s) st.edges.push_back({link.logp, {{v.i, v.j, b, false}, {}}, 1, 0});
         }
       }
     } else if (v.j == v.i + 1) {
