@@ -5,6 +5,9 @@
 #include "evaluator/errors.h"
 #include "harness/cli/command.h"
 #include "harness/results/compare.h"
+#include "harness/run/gate.h"
+#include "harness/run/regression_run.h"
+#include "harness/suite/config.h"
 
 namespace treegate::cli {
 namespace {
@@ -18,10 +21,30 @@ bool looks_like_results(const std::string& path) {
   return in && c == '{';
 }
 
+// A results file is read; a grammar is run first on the suites of the project config.
+results::RunResults load_side(const std::string& path, const std::string& config_file,
+                              std::size_t jobs) {
+  if (looks_like_results(path)) return results::load_results(path);
+  const std::string file = config_file.empty() ? suite::find_config() : config_file;
+  if (file.empty()) {
+    throw InputError(path +
+                     ": not a results file, so it is taken for a grammar; running it needs a "
+                     "project config (treegate.yaml here, or --config FILE) that names the suites");
+  }
+  run::RunRequest request;
+  request.config = suite::load_config(file);
+  request.config.grammar = path;
+  request.jobs = jobs;
+  bool interrupted = false;
+  std::cerr << "treegate compare: running the suites of " << file << " with " << path << "\n";
+  return run::execute_run(request, interrupted);
+}
+
 int run_compare(int argc, char** argv) {
   Usage usage{"compare", "OLD NEW [--format text|json] [--test randomization|bootstrap] ...",
               "Compare two runs case by case (each side a results file written by `treegate "
-              "run --results`): transitions, figures with differences, error classes, "
+              "run --results`, or a grammar: then the config's suites are run with it first): "
+              "transitions, figures with differences, error classes, "
               "significance, parse time; exit 1 when NEW fails the gate with OLD as baseline.",
               "treegate compare suites/demo/results-v1.jsonl suites/demo/results-v2.jsonl"};
   usage.exit_codes = "0 gate passed, 1 gate failed, 2 bad usage or unreadable input";
@@ -29,6 +52,8 @@ int run_compare(int argc, char** argv) {
   std::string old_path, new_path, format = "text", test = "randomization";
   results::CompareOptions options;
   std::size_t listed = 20;
+  std::string config;
+  std::size_t jobs = 0;
   opts.add_options()("old", po::value(&old_path)->required(), "the earlier run (results file)")(
       "new", po::value(&new_path)->required(), "the later run (results file)")(
       "format", po::value(&format), "text (default) or json")(
@@ -40,7 +65,10 @@ int run_compare(int argc, char** argv) {
       "seed", po::value(&options.significance.seed), "random seed (default 20121)")(
       "level", po::value(&options.significance.level),
       "significance level the verdict refers to (default 0.05)")(
-      "list", po::value(&listed), "cases listed per transition in text output (default 20)");
+      "list", po::value(&listed), "cases listed per transition in text output (default 20)")(
+      "config", po::value(&config),
+      "project config whose suites are run when a side is a grammar (default ./treegate.yaml)")(
+      "jobs", po::value(&jobs), "parallel workers when a side is a grammar (default: cores)");
   po::positional_options_description pos;
   pos.add("old", 1).add("new", 1);
   po::variables_map vm;
@@ -56,16 +84,11 @@ int run_compare(int argc, char** argv) {
     options.significance.method = SignificanceMethod::kPairedBootstrap;
   }
   try {
-    for (const std::string* p : {&old_path, &new_path}) {
-      if (!looks_like_results(*p)) {
-        return fail("compare", *p + ": not a results file (expected a JSON header line); run "
-                                    "`treegate run --results FILE` with each grammar first");
-      }
-    }
-    const results::RunResults old_run = results::load_results(old_path);
-    const results::RunResults new_run = results::load_results(new_path);
-    const results::Comparison c =
-        results::compare_runs(old_run, old_path, new_run, new_path, options);
+    const results::RunResults old_run = load_side(old_path, config, jobs);
+    const results::RunResults new_run = load_side(new_path, config, jobs);
+    results::Comparison c = results::compare_runs(old_run, old_path, new_run, new_path, options);
+    const run::RunSummary gate = run::summarize(new_run, &old_run);
+    c.gate = {gate.gate_passed, gate.gate_reasons};
     std::cout << (format == "json" ? results::comparison_json(c)
                                    : results::comparison_text(c, listed));
     return c.gate.passed ? kExitOk : kExitGateFailed;

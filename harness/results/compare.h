@@ -1,7 +1,8 @@
 // Comparison of two runs (results files) case by case: transitions, P/R/F1 per suite,
 // construction, label and length bucket, error classes, significance, speed, and the gate of
 // NEW against OLD. `Comparison` is a plain value that the console, JSON and HTML renderers
-// read; building one re-scores both runs' trees under NEW's scheme. No shared state.
+// read; building one re-scores both runs' trees under NEW's scheme. The gate is decided by
+// the run library (harness/run/gate.h), which depends on this one. No shared state.
 #pragma once
 
 #include <cstdint>
@@ -90,7 +91,7 @@ struct Comparison {
   std::vector<ErrorClassRow> error_classes;
   SignificanceResult significance{};
   SpeedSummary old_speed, new_speed;
-  GateVerdict gate;
+  GateVerdict gate;  // filled by the caller (the run library's gate: NEW with OLD as baseline)
 };
 
 struct CompareOptions {
@@ -102,9 +103,6 @@ struct CompareOptions {
 Comparison compare_runs(const RunResults& old_run, const std::string& old_name,
                         const RunResults& new_run, const std::string& new_name,
                         const CompareOptions& options = {});
-
-/// The gate of NEW against OLD as baseline (settings from NEW's header).
-GateVerdict compare_gate(const Comparison& comparison);
 
 std::string comparison_text(const Comparison& comparison, std::size_t max_listed = 20);
 std::string comparison_json(const Comparison& comparison);
