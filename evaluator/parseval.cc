@@ -146,8 +146,8 @@ void Scorer::collect_brackets(const Tree& tree, const std::vector<std::int32_t>&
       const LabelId label = canonical(node.label);
       const bool wrapper = i == 0 && (kind_[node.label] & kRootLabel);
       if (!wrapper) {
-        out.push_back({label, static_cast<std::uint32_t>(start[i]),
-                       static_cast<std::uint32_t>(end[i])});
+        out.push_back(
+            {label, static_cast<std::uint32_t>(start[i]), static_cast<std::uint32_t>(end[i])});
       }
     }
     if (node.parent != kNoNode && start[i] < end[i]) {
@@ -232,8 +232,8 @@ SentenceScore Scorer::score(const Tree& gold, const Tree& test, BracketSets* set
   tpos.assign(test.num_words(), -1);
   for (std::size_t k = 0; k < tw.kept.size(); ++k) {
     tpos[static_cast<std::size_t>(tw.kept[k])] = kept_pos[k];
-    if (kept_pos[k] >= 0 &&
-        tw.tag[static_cast<std::size_t>(tw.kept[k])] == gw.tag[static_cast<std::size_t>(gw.kept[k])]) {
+    if (kept_pos[k] >= 0 && tw.tag[static_cast<std::size_t>(tw.kept[k])] ==
+                                gw.tag[static_cast<std::size_t>(gw.kept[k])]) {
       ++s.tags_correct;
     }
   }
