@@ -1,0 +1,53 @@
+#!/usr/bin/env bash
+# Runs each libFuzzer target for TIME seconds and prints one figure line per target
+# (executions, coverage, corpus, crashes). Builds build-asan/ first (ci/sanitize --build-only)
+# unless FUZZ_NO_BUILD=1. The committed seeds in tests/fuzz/corpus/<name>/ are read, never
+# written; new inputs go to build-asan/fuzz-work/<name>/ and crashes to
+# build-asan/fuzz-artifacts/<name>/. Exit 1 when any target crashed, leaked or timed out.
+# Usage: tests/fuzz/run-fuzz.sh TIME [NAME...]     (NAME: bracket_reader, grammar, ...)
+set -euo pipefail
+here=$(cd "$(dirname "$0")" && pwd)
+root=$(cd "$here/../.." && pwd)
+time_s=${1:?usage: run-fuzz.sh TIME [NAME...]}
+shift
+build=${ASAN_BUILD_DIR:-$root/build-asan}
+[ "${FUZZ_NO_BUILD:-0}" = 1 ] || "$root/ci/sanitize" --build-only >/dev/null
+names=("$@")
+if [ ${#names[@]} -eq 0 ]; then
+  for src in "$here"/fuzz_*.cc; do
+    n=$(basename "$src" .cc)
+    names+=("${n#fuzz_}")
+  done
+fi
+export ASAN_OPTIONS=${ASAN_OPTIONS:-detect_leaks=1:abort_on_error=1}
+export UBSAN_OPTIONS=${UBSAN_OPTIONS:-print_stacktrace=1:halt_on_error=1}
+status=0
+printf '%-16s %8s %12s %8s %8s %8s %8s\n' target seconds executions exec/s cov features crashes
+for name in "${names[@]}"; do
+  bin="$build/fuzz/fuzz_$name"
+  [ -x "$bin" ] || { echo "run-fuzz: no target $bin" >&2; status=1; continue; }
+  work="$build/fuzz-work/$name"
+  art="$build/fuzz-artifacts/$name"
+  log="$build/fuzz-logs/$name.log"
+  mkdir -p "$work" "$art" "$(dirname "$log")"
+  args=(-max_total_time="$time_s" -timeout=10 -rss_limit_mb=2048 -max_len=16384
+        -print_final_stats=1 -artifact_prefix="$art/")
+  [ -f "$here/$name.dict" ] && args+=(-dict="$here/$name.dict")
+  seeds=()
+  [ -d "$here/corpus/$name" ] && seeds=("$here/corpus/$name")
+  rc=0
+  "$bin" "${args[@]}" "$work" "${seeds[@]}" >"$log" 2>&1 || rc=$?
+  execs=$(sed -n 's/^stat::number_of_executed_units: *//p' "$log" | tail -1)
+  speed=$(sed -n 's/^stat::average_exec_per_sec: *//p' "$log" | tail -1)
+  cov=$(grep -oE 'cov: [0-9]+' "$log" | tail -1 | cut -d' ' -f2)
+  ft=$(grep -oE 'ft: [0-9]+' "$log" | tail -1 | cut -d' ' -f2)
+  crashes=$(find "$art" -type f | wc -l)
+  printf '%-16s %8s %12s %8s %8s %8s %8s\n' "$name" "$time_s" "${execs:-?}" "${speed:-?}" \
+    "${cov:-?}" "${ft:-?}" "$crashes"
+  if [ "$rc" -ne 0 ] || [ "$crashes" -gt 0 ]; then
+    echo "run-fuzz: $name failed (exit $rc); log: $log; inputs: $art" >&2
+    grep -m3 -E 'ERROR|SUMMARY|property failed' "$log" >&2 || true
+    status=1
+  fi
+done
+exit $status
