@@ -1,6 +1,8 @@
 #include "harness/report/html_from_results.h"
 
+#include <chrono>
 #include <cmath>
+#include <ctime>
 #include <map>
 
 #include <fmt/format.h>
@@ -8,6 +10,7 @@
 #include "evaluator/bracket_io.h"
 #include "evaluator/errors.h"
 #include "evaluator/tally.h"
+#include "harness/report/html_page.h"
 
 namespace treegate::report::html {
 namespace {
@@ -267,6 +270,31 @@ ReportView view_of_run(const RunResults& run, const RunResults* baseline, const 
     v.cases.push_back(std::move(cv));
   }
   return v;
+}
+
+void write_run_report(const std::string& path, const RunResults& run, const RunResults* baseline,
+                      const run::RunSummary& summary) {
+  std::string date;
+  if (run.header.timings) {
+    const std::time_t now = std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
+    std::tm utc{};
+    gmtime_r(&now, &utc);
+    char text[32];
+    std::strftime(text, sizeof text, "%Y-%m-%d %H:%M UTC", &utc);
+    date = text;
+  }
+  ReportView v = view_of_run(run, baseline, {summary.gate_passed, summary.gate_reasons}, date);
+  v.counts.cases = summary.cases;
+  v.counts.passed = summary.passed;
+  v.counts.failed = summary.failed;
+  v.counts.errors = summary.errors;
+  v.counts.expected_failures = summary.expected_failures;
+  v.counts.unexpected_passes = summary.unexpected_passes;
+  if (summary.has_baseline) {
+    v.counts.fixed = summary.fixes.size();
+    v.counts.broken = summary.regressions.size();
+  }
+  write_html_report(path, v);
 }
 
 }  // namespace treegate::report::html
