@@ -38,9 +38,9 @@ int run_score(int argc, char** argv) {
     // that a huge treebank is scored in bounded memory (tests/e2e/hostile_huge_treebank.sh).
     const bool keep_all = format == "json" || vm.count("per-sentence") > 0;
     auto keep = [&](std::size_t index, const SentenceScore& s) {
-      if (!keep_all && (s.status == SentenceStatus::kScored || s.status == SentenceStatus::kNoParse)) {
-        return;
-      }
+      const bool reported =
+          s.status != SentenceStatus::kScored && s.status != SentenceStatus::kNoParse;
+      if (!keep_all && !reported) return;
       report::ScoredSentence item{index, s};
       sentences.push_back(std::move(item));
     };
