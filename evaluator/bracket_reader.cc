@@ -11,9 +11,22 @@ namespace {
 constexpr int kEof = -1;
 constexpr std::size_t kFirstChunk = 4096;  // small first reads: parse_tree on short strings
 constexpr std::size_t kChunk = 1 << 20;    // doubled up to this for large files
+constexpr std::size_t kCacheSlots = 4096;  // a power of two
 
-bool is_space(int c) { return c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v'; }
-bool is_delim(int c) { return c == '(' || c == ')' || is_space(c) || c == kEof || c == 0; }
+bool is_space(int c) {
+  return c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v';
+}
+
+// Bytes that end an atom: whitespace, parentheses and NUL (a table: this is the hot loop).
+struct DelimTable {
+  bool is[256] = {};
+  DelimTable() {
+    for (int c : {' ', '\t', '\n', '\r', '\f', '\v', '(', ')', '\0'})
+      is[static_cast<unsigned char>(c)] = true;
+  }
+};
+const DelimTable kDelims;
+bool is_delim(int c) { return c == kEof || kDelims.is[c & 0xff]; }
 
 struct Open {
   NodeId node;
@@ -36,6 +49,14 @@ struct BracketReader::Impl {
   bool recovering = false;
   std::string atom;
   std::vector<Open> stack;
+  // Labels seen by this reader, so most labels are found without the shared table's lock:
+  // a small open-addressing table (FNV-1a hash) that stops growing when half full.
+  struct CacheSlot {
+    std::string name;
+    LabelId id = LabelTable::kNone;
+  };
+  std::vector<CacheSlot> cache;  // allocated from the second tree on (parse_tree reads one)
+  std::size_t cached = 0;
 
   Impl(std::istream& i, std::string s, LabelTable& l, ReadLimits lim)
       : in(i), source(std::move(s)), labels(l), limits(lim) {}
@@ -63,17 +84,22 @@ struct BracketReader::Impl {
   void skip_space() {
     for (int c = peek(); is_space(c); c = peek()) advance();
   }
-  // Reads an atom (label or word) into `atom`; the caller has checked it is not a delimiter.
-  void read_atom() {
-    atom.clear();
-    for (;;) {
-      if (pos == buf.size() && !refill()) return;
-      std::size_t start = pos;
+  // Reads an atom (label or word); the caller has checked it is not a delimiter. The view
+  // points into the buffer, or into `atom` when the atom crosses a chunk boundary; it is valid
+  // until the next read.
+  std::string_view read_atom() {
+    const std::size_t start = pos;
+    while (pos < buf.size() && !is_delim(static_cast<unsigned char>(buf[pos]))) ++pos;
+    col += pos - start;
+    if (pos < buf.size()) return std::string_view(buf).substr(start, pos - start);
+    atom.assign(buf, start, pos - start);
+    while (refill()) {
       while (pos < buf.size() && !is_delim(static_cast<unsigned char>(buf[pos]))) ++pos;
-      atom.append(buf, start, pos - start);
-      col += pos - start;
-      if (pos < buf.size()) return;
+      atom.append(buf, 0, pos);
+      col += pos;
+      if (pos < buf.size()) break;
     }
+    return atom;
   }
 
   [[noreturn]] void fail(std::size_t l, std::size_t c, const std::string& what) {
@@ -101,6 +127,26 @@ struct BracketReader::Impl {
     recovering = false;
   }
 
+  LabelId intern_atom(std::string_view name) {
+    if (trees < 2) return labels.intern(name);
+    if (cache.empty()) cache.resize(kCacheSlots);
+    std::uint64_t h = 1469598103934665603ull;
+    for (unsigned char c : name) h = (h ^ c) * 1099511628211ull;
+    for (std::size_t i = h & (kCacheSlots - 1);; i = (i + 1) & (kCacheSlots - 1)) {
+      CacheSlot& slot = cache[i];
+      if (slot.id == LabelTable::kNone) {
+        const LabelId id = labels.intern(name);
+        if (cached < kCacheSlots / 2) {
+          slot.name = name;
+          slot.id = id;
+          ++cached;
+        }
+        return id;
+      }
+      if (slot.name == name) return slot.id;
+    }
+  }
+
   void open_node(Tree& out, std::size_t l, std::size_t c) {
     const NodeId parent = stack.empty() ? kNoNode : stack.back().node;
     skip_space();
@@ -111,8 +157,7 @@ struct BracketReader::Impl {
     } else if (next == ')' || next == kEof || next == 0) {
       fail(line, col, "expected a label or '(' after '(' but found " + found_here());
     } else {
-      read_atom();
-      id = out.add_node(labels.intern(atom), parent);
+      id = out.add_node(intern_atom(read_atom()), parent);
     }
     if (stack.size() >= limits.max_depth) {
       fail(l, c, "nested deeper than " + std::to_string(limits.max_depth) + " levels");
@@ -153,8 +198,9 @@ struct BracketReader::Impl {
       const Node& node = out.node(top.node);
       if (c == '(') {
         if (node.first_child != kNoNode && out.node(node.first_child).is_leaf()) {
-          fail(line, col, "expected ')' after the word of " + open_desc(out, top) +
-                              " (a tag holds exactly one word) but found '('");
+          fail(line, col,
+               "expected ')' after the word of " + open_desc(out, top) +
+                   " (a tag holds exactly one word) but found '('");
         }
         l = line;
         cl = col;
@@ -162,7 +208,8 @@ struct BracketReader::Impl {
         open_node(out, l, cl);
       } else if (c == ')') {
         if (node.first_child == kNoNode) {
-          fail(line, col, "expected a word or '(' inside " + open_desc(out, top) + " but found ')'");
+          fail(line, col,
+               "expected a word or '(' inside " + open_desc(out, top) + " but found ')'");
         }
         advance();
         stack.pop_back();
@@ -173,15 +220,14 @@ struct BracketReader::Impl {
       } else {
         l = line;
         cl = col;
-        read_atom();
+        const std::string_view word = read_atom();
         if (node.first_child != kNoNode) {
-          fail(l, cl, "expected '(' or ')' inside " + open_desc(out, top) + " but found word " +
-                          quote_for_message(atom) + " (a word must be the only child of its tag)");
+          fail(l, cl,
+               "expected '(' or ')' inside " + open_desc(out, top) + " but found word " +
+                   quote_for_message(std::string(word)) +
+                   " (a word must be the only child of its tag)");
         }
-        if (node.label == LabelTable::kEmpty) {
-          fail(l, cl, "word " + quote_for_message(atom) + " has no tag; expected '(TAG word)'");
-        }
-        out.add_leaf(atom, top.node);
+        out.add_leaf(word, top.node);
       }
     }
     return true;
@@ -203,7 +249,8 @@ Tree parse_tree(std::string_view text, const std::string& source, LabelTable& la
   std::istringstream in{std::string(text)};
   BracketReader reader(in, source, labels);
   Tree tree(labels);
-  if (!reader.next(tree)) throw InputError(source, 1, 1, "expected a bracketed tree but found nothing");
+  if (!reader.next(tree))
+    throw InputError(source, 1, 1, "expected a bracketed tree but found nothing");
   Tree extra(labels);
   bool more = false;
   try {

@@ -112,11 +112,6 @@ bool SentenceScore::counts(const Scheme& scheme) const {
          (status == SentenceStatus::kNoParse && scheme.count_unparsed);
 }
 
-struct Scorer::Words {
-  std::vector<LabelId> tag;     // raw tag of each word (kEmpty when untagged)
-  std::vector<std::int32_t> kept;  // indices of words that are not empty elements
-};
-
 Scorer::Scorer(Scheme scheme, LabelTable& labels) : scheme_(std::move(scheme)), labels_(&labels) {}
 
 LabelId Scorer::canonical(LabelId raw) {
@@ -156,12 +151,14 @@ void Scorer::collect_words(const Tree& tree, Words& out) {
   }
 }
 
-void Scorer::collect_brackets(const Tree& tree, const Words&,
-                              const std::vector<std::int32_t>& position,
+void Scorer::collect_brackets(const Tree& tree, const std::vector<std::int32_t>& position,
                               std::vector<Bracket>& out) {
   out.clear();
   const std::size_t n = tree.size();
-  std::vector<std::int32_t> start(n, INT_MAX), end(n, -1);
+  std::vector<std::int32_t>& start = start_;
+  std::vector<std::int32_t>& end = end_;
+  start.assign(n, INT_MAX);
+  end.assign(n, -1);
   // Children always have larger ids than their parents, so one backward pass is post-order.
   for (std::size_t i = n; i-- > 0;) {
     const Node& node = tree.node(static_cast<NodeId>(i));
@@ -175,8 +172,8 @@ void Scorer::collect_brackets(const Tree& tree, const Words&,
       const LabelId label = canonical(node.label);
       const bool wrapper = i == 0 && (kind_[node.label] & kRootLabel);
       if (!wrapper) {
-        out.push_back({label, static_cast<std::uint32_t>(start[i]),
-                       static_cast<std::uint32_t>(end[i])});
+        out.push_back(
+            {label, static_cast<std::uint32_t>(start[i]), static_cast<std::uint32_t>(end[i])});
       }
     }
     if (node.parent != kNoNode && start[i] < end[i]) {
@@ -199,7 +196,7 @@ std::vector<Bracket> Scorer::brackets_of(const Tree& tree) {
     }
   }
   std::vector<Bracket> out;
-  collect_brackets(tree, words, position, out);
+  collect_brackets(tree, position, out);
   return out;
 }
 
@@ -209,7 +206,7 @@ SentenceScore Scorer::score(const Tree& gold, const Tree& test, BracketSets* set
   BracketSets& b = sets ? *sets : local;
   b.gold.clear();
   b.test.clear();
-  Words gw;
+  Words& gw = gold_words_;
   collect_words(gold, gw);
   if (gw.kept.empty()) {
     s.status = SentenceStatus::kError;
@@ -217,15 +214,17 @@ SentenceScore Scorer::score(const Tree& gold, const Tree& test, BracketSets* set
     return s;
   }
   // Gold positions: scored index of each gold word, -1 for empty elements and ignored tokens.
-  std::vector<std::int32_t> gpos(gold.num_words(), -1);
-  std::vector<std::int32_t> kept_pos(gw.kept.size(), -1);
+  std::vector<std::int32_t>& gpos = gold_pos_;
+  std::vector<std::int32_t>& kept_pos = kept_pos_;
+  gpos.assign(gold.num_words(), -1);
+  kept_pos.assign(gw.kept.size(), -1);
   std::int32_t next = 0;
   for (std::size_t k = 0; k < gw.kept.size(); ++k) {
     const auto w = static_cast<std::size_t>(gw.kept[k]);
     if (!(kind_[gw.tag[w]] & kIgnoredTag)) kept_pos[k] = gpos[w] = next++;
   }
   s.words = static_cast<std::uint32_t>(next);
-  collect_brackets(gold, gw, gpos, b.gold);
+  collect_brackets(gold, gpos, b.gold);
   s.gold_brackets = static_cast<std::uint32_t>(b.gold.size());
 
   if (test.num_words() == 0) {
@@ -233,7 +232,7 @@ SentenceScore Scorer::score(const Tree& gold, const Tree& test, BracketSets* set
     s.reason = "no parse";
     return s;
   }
-  Words tw;
+  Words& tw = test_words_;
   collect_words(test, tw);
   const std::size_t common = std::min(gw.kept.size(), tw.kept.size());
   for (std::size_t k = 0; k <= common; ++k) {
@@ -255,15 +254,16 @@ SentenceScore Scorer::score(const Tree& gold, const Tree& test, BracketSets* set
       return s;
     }
   }
-  std::vector<std::int32_t> tpos(test.num_words(), -1);
+  std::vector<std::int32_t>& tpos = test_pos_;
+  tpos.assign(test.num_words(), -1);
   for (std::size_t k = 0; k < tw.kept.size(); ++k) {
     tpos[static_cast<std::size_t>(tw.kept[k])] = kept_pos[k];
-    if (kept_pos[k] >= 0 &&
-        tw.tag[static_cast<std::size_t>(tw.kept[k])] == gw.tag[static_cast<std::size_t>(gw.kept[k])]) {
+    if (kept_pos[k] >= 0 && tw.tag[static_cast<std::size_t>(tw.kept[k])] ==
+                                gw.tag[static_cast<std::size_t>(gw.kept[k])]) {
       ++s.tags_correct;
     }
   }
-  collect_brackets(test, tw, tpos, b.test);
+  collect_brackets(test, tpos, b.test);
   s.test_brackets = static_cast<std::uint32_t>(b.test.size());
   s.matched = match(b.gold, b.test);
   s.crossing = count_crossing(b.gold, b.test);

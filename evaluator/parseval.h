@@ -40,7 +40,7 @@ inline bool crosses(const Bracket& a, const Bracket& b) {
 
 struct SentenceScore {
   SentenceStatus status = SentenceStatus::kScored;
-  std::string reason;              // for errors and no-parse: what happened
+  std::string reason;  // for errors and no-parse: what happened
   std::uint32_t gold_brackets = 0;
   std::uint32_t test_brackets = 0;
   std::uint32_t matched = 0;
@@ -73,15 +73,21 @@ class Scorer {
   LabelId canonical(LabelId raw);
 
  private:
-  struct Words;
+  struct Words {
+    std::vector<LabelId> tag;        // raw tag of each word (kEmpty when untagged)
+    std::vector<std::int32_t> kept;  // indices of words that are not empty elements
+  };
   void collect_words(const Tree& tree, Words& out);
-  void collect_brackets(const Tree& tree, const Words& words,
-                        const std::vector<std::int32_t>& position, std::vector<Bracket>& out);
+  void collect_brackets(const Tree& tree, const std::vector<std::int32_t>& position,
+                        std::vector<Bracket>& out);
 
   Scheme scheme_;
   LabelTable* labels_;
   std::vector<LabelId> canonical_;  // raw id -> canonical id, LabelTable::kNone when unknown
   std::vector<std::uint8_t> kind_;  // raw id -> bit 1 ignored tag, bit 2 empty tag, bit 4 root
+  // Scratch space reused from sentence to sentence.
+  Words gold_words_, test_words_;
+  std::vector<std::int32_t> gold_pos_, kept_pos_, test_pos_, start_, end_;
 };
 
 }  // namespace treegate

@@ -64,7 +64,8 @@ Figures figures(const Counts& c) {
   f.recall = recall_pct(c.matched, c.test, c.gold);
   f.f1 = f1_pct(c.matched, c.test, c.gold);
   f.exact_match = pct(c.exact, c.scored);
-  f.crossing_avg = c.scored == 0 ? 0.0 : static_cast<double>(c.crossing) / static_cast<double>(c.scored);
+  f.crossing_avg =
+      c.scored == 0 ? 0.0 : static_cast<double>(c.crossing) / static_cast<double>(c.scored);
   f.zero_crossing_pct = pct(c.zero_crossing, c.scored);
   f.le2_crossing_pct = pct(c.le2_crossing, c.scored);
   f.tag_accuracy = pct(c.tags_correct, c.words);
@@ -75,19 +76,33 @@ void Tally::add(const SentenceScore& s, const BracketSets& brackets) {
   all_.add(s, scheme_);
   if (s.words <= scheme_.length_cutoff) cutoff_.add(s, scheme_);
   if (!s.counts(scheme_)) return;
-  for (const Bracket& b : brackets.gold) ++per_label_[b.label].gold;
+  for (const Bracket& b : brackets.gold) ++slot(b.label).gold;
   for (const Bracket& b : brackets.test) {
-    LabelCounts& lc = per_label_[b.label];
+    LabelCounts& lc = slot(b.label);
     ++lc.test;
     if (b.matched) ++lc.matched;
   }
 }
 
+LabelCounts& Tally::slot(LabelId label) {
+  if (label >= per_label_.size()) per_label_.resize(label + 1);
+  return per_label_[label];
+}
+
+std::map<LabelId, LabelCounts> Tally::per_label() const {
+  std::map<LabelId, LabelCounts> out;
+  for (std::size_t i = 0; i < per_label_.size(); ++i) {
+    const LabelCounts& lc = per_label_[i];
+    if (lc.gold + lc.test > 0) out[static_cast<LabelId>(i)] = lc;
+  }
+  return out;
+}
+
 void Tally::merge(const Tally& o) {
   all_.merge(o.all_);
   cutoff_.merge(o.cutoff_);
-  for (const auto& [label, lc] : o.per_label_) {
-    LabelCounts& mine = per_label_[label];
+  for (const auto& [label, lc] : o.per_label()) {
+    LabelCounts& mine = slot(label);
     mine.gold += lc.gold;
     mine.test += lc.test;
     mine.matched += lc.matched;

@@ -6,6 +6,7 @@
 #include <cstdint>
 #include <map>
 #include <string>
+#include <vector>
 
 #include "evaluator/parseval.h"
 
@@ -52,14 +53,16 @@ class Tally {
 
   const Counts& all() const { return all_; }
   const Counts& within_cutoff() const { return cutoff_; }
-  /// Keyed by canonical label id (of the scorer's label table).
-  const std::map<LabelId, LabelCounts>& per_label() const { return per_label_; }
+  /// Keyed by canonical label id (of the scorer's label table); labels never seen are left out.
+  std::map<LabelId, LabelCounts> per_label() const;
   const Scheme& scheme() const { return scheme_; }
 
  private:
   Scheme scheme_;
   Counts all_, cutoff_;
-  std::map<LabelId, LabelCounts> per_label_;
+  LabelCounts& slot(LabelId label);
+
+  std::vector<LabelCounts> per_label_;  // indexed by label id
 };
 
 }  // namespace treegate

@@ -12,37 +12,37 @@ namespace treegate::cli {
 namespace {
 
 int run_score(int argc, char** argv) {
-  const Usage usage{"score", "GOLD TEST [--scheme FILE] [--per-sentence] [--format text|json]",
-                    "Score the bracketed trees of TEST against those of GOLD (tree i with tree i) "
-                    "with labeled PARSEVAL.",
-                    "treegate score suites/examples/gold.trees suites/examples/test.trees --per-sentence"};
+  const Usage usage{
+      "score", "GOLD TEST [--scheme FILE] [--per-sentence] [--format text|json]",
+      "Score the bracketed trees of TEST against those of GOLD (tree i with tree i) "
+      "with labeled PARSEVAL.",
+      "treegate score suites/examples/gold.trees suites/examples/test.trees --per-sentence"};
   po::options_description opts("options");
   std::string gold, test, scheme_file, format = "text";
   opts.add_options()("gold", po::value(&gold)->required(), "gold trees (bracketed)")(
       "test", po::value(&test)->required(), "test trees, same order; () means no parse")(
       "scheme", po::value(&scheme_file), "YAML file of scoring settings (see README)")(
-      "per-sentence", "add a table with one row per sentence")(
-      "format", po::value(&format), "text (default) or json");
+      "per-sentence", "add a table with one row per sentence")("format", po::value(&format),
+                                                               "text (default) or json");
   po::positional_options_description pos;
   pos.add("gold", 1).add("test", 1);
   po::variables_map vm;
   if (int code = parse_command_line(argc, argv, usage, opts, pos, vm); code >= 0) return code;
-  if (format != "text" && format != "json") return fail("score", "--format must be text or json, not '" + format + "'");
+  if (format != "text" && format != "json")
+    return fail("score", "--format must be text or json, not '" + format + "'");
   try {
     const Scheme scheme = scheme_file.empty() ? Scheme{} : load_scheme_file(scheme_file);
     std::ifstream g(gold, std::ios::binary), t(test, std::ios::binary);
     if (!g) return fail("score", gold + ": cannot open file for reading");
     if (!t) return fail("score", test + ": cannot open file for reading");
     std::vector<report::ScoredSentence> sentences;
-    // Text without --per-sentence lists only the sentences not scored: keep just those, so
-    // that a huge treebank is scored in bounded memory (tests/e2e/hostile_huge_treebank.sh).
-    const bool keep_all = format == "json" || vm.count("per-sentence") > 0;
+    // Keep every sentence only when it is listed; otherwise only the errors (flat memory).
+    const bool list_all = format == "json" || vm.count("per-sentence") > 0;
     auto keep = [&](std::size_t index, const SentenceScore& s) {
-      const bool reported =
-          s.status != SentenceStatus::kScored && s.status != SentenceStatus::kNoParse;
-      if (!keep_all && !reported) return;
-      report::ScoredSentence item{index, s};
-      sentences.push_back(std::move(item));
+      if (list_all || s.status == SentenceStatus::kYieldMismatch ||
+          s.status == SentenceStatus::kError) {
+        sentences.push_back({index, s});
+      }
     };
     Tally tally = score_streams(g, gold, t, test, scheme, keep);
     report::ScoreRun run{gold, test, std::move(tally), std::move(sentences)};
@@ -54,7 +54,8 @@ int run_score(int argc, char** argv) {
   return kExitOk;
 }
 
-const Registration reg({"score", "PARSEVAL figures of a file of test trees against gold trees", &run_score});
+const Registration reg({"score", "PARSEVAL figures of a file of test trees against gold trees",
+                        &run_score});
 
 }  // namespace
 }  // namespace treegate::cli

@@ -47,6 +47,30 @@ std::string figure_rows(const Counts& all, const Counts& cut) {
   return s;
 }
 
+std::string per_sentence_json(const ScoreRun& run) {
+  if (run.sentences.empty()) return "[]";
+  fmt::memory_buffer out;
+  fmt::format_to(std::back_inserter(out), "[");
+  for (const auto& item : run.sentences) {
+    const SentenceScore& x = item.score;
+    fmt::format_to(std::back_inserter(out),
+                   "{}\n    {{\"index\": {}, \"status\": \"{}\", \"gold_brackets\": {}, "
+                   "\"test_brackets\": {}, \"matched\": {}, \"crossing\": {}, \"words\": {}, "
+                   "\"tags_correct\": {}",
+                   &item == &run.sentences.front() ? "" : ",", item.index, status_name(x.status),
+                   x.gold_brackets, x.test_brackets, x.matched, x.crossing, x.words,
+                   x.tags_correct);
+    if (x.status != SentenceStatus::kScored && !x.reason.empty()) {
+      fmt::format_to(
+          std::back_inserter(out), ", \"reason\": {}",
+          ordered_json(x.reason).dump(-1, ' ', false, ordered_json::error_handler_t::replace));
+    }
+    fmt::format_to(std::back_inserter(out), "}}");
+  }
+  fmt::format_to(std::back_inserter(out), "\n  ]");
+  return fmt::to_string(out);
+}
+
 }  // namespace
 
 std::string score_text(const ScoreRun& run, bool per_sentence) {
@@ -56,17 +80,18 @@ std::string score_text(const ScoreRun& run, bool per_sentence) {
   s += fmt::format("{} sentences: {} scored, {} errors, {} without a parse\n", all.sentences,
                    all.scored, all.errors, all.unparsed);
   s += fmt::format("brackets: {} gold, {} test, {} matched\n\n", all.gold, all.test, all.matched);
-  s += fmt::format("  {:<22}{:>12}{:>14}\n", "", "all", fmt::format("<= {} words", run.tally.scheme().length_cutoff));
+  s += fmt::format("  {:<22}{:>12}{:>14}\n", "", "all",
+                   fmt::format("<= {} words", run.tally.scheme().length_cutoff));
   s += fmt::format("  {:<22}{:>12}{:>14}\n", "sentences counted", all.scored, cut.scored);
   s += figure_rows(all, cut);
 
   s += fmt::format("\n  {:<14}{:>8}{:>8}{:>8}{:>10}{:>10}{:>8}\n", "label", "gold", "test",
                    "matched", "precision", "recall", "F1");
   for (const auto& [label, lc] : run.tally.per_label()) {
-    s += fmt::format("  {:<14}{:>8}{:>8}{:>8}{:>10.2f}{:>10.2f}{:>8.2f}\n",
-                     std::string(run.labels->name(label)), lc.gold, lc.test, lc.matched,
-                     precision_pct(lc.matched, lc.test, lc.gold),
-                     recall_pct(lc.matched, lc.test, lc.gold), f1_pct(lc.matched, lc.test, lc.gold));
+    s += fmt::format(
+        "  {:<14}{:>8}{:>8}{:>8}{:>10.2f}{:>10.2f}{:>8.2f}\n", std::string(run.labels->name(label)),
+        lc.gold, lc.test, lc.matched, precision_pct(lc.matched, lc.test, lc.gold),
+        recall_pct(lc.matched, lc.test, lc.gold), f1_pct(lc.matched, lc.test, lc.gold));
   }
   bool any_error = false;
   for (const auto& item : run.sentences) {
@@ -84,7 +109,8 @@ std::string score_text(const ScoreRun& run, bool per_sentence) {
       s += fmt::format("  {:>6} {:<15}{:>6}{:>6}{:>6}{:>8}{:>9.2f}{:>6}{:>6}{:>8}\n", item.index,
                        status_name(x.status), x.words, x.gold_brackets, x.test_brackets, x.matched,
                        f1_pct(x.matched, x.test_brackets, x.gold_brackets), x.crossing,
-                       x.tags_correct, x.counts(run.tally.scheme()) && x.exact_match() ? "yes" : "no");
+                       x.tags_correct,
+                       x.counts(run.tally.scheme()) && x.exact_match() ? "yes" : "no");
     }
   }
   return s;
@@ -93,22 +119,9 @@ std::string score_text(const ScoreRun& run, bool per_sentence) {
 std::string score_json(const ScoreRun& run) {
   ordered_json j;
   j["totals"] = totals_json(run.tally.all());
-  ordered_json list = ordered_json::array();
-  for (const auto& item : run.sentences) {
-    const SentenceScore& x = item.score;
-    ordered_json e;
-    e["index"] = item.index;
-    e["status"] = status_name(x.status);
-    e["gold_brackets"] = x.gold_brackets;
-    e["test_brackets"] = x.test_brackets;
-    e["matched"] = x.matched;
-    e["crossing"] = x.crossing;
-    e["words"] = x.words;
-    e["tags_correct"] = x.tags_correct;
-    if (!x.reason.empty() && x.status != SentenceStatus::kScored) e["reason"] = x.reason;
-    list.push_back(std::move(e));
-  }
-  j["per_sentence"] = std::move(list);
+  // The per-sentence list is the bulk of the output: written directly, one object per line.
+  static const char* kSlot = "\u0001per_sentence";
+  j["per_sentence"] = kSlot;
   ordered_json labels = ordered_json::object();
   for (const auto& [label, lc] : run.tally.per_label()) {
     ordered_json e;
@@ -124,7 +137,10 @@ std::string score_json(const ScoreRun& run) {
   ordered_json cut = totals_json(run.tally.within_cutoff());
   cut["max_length"] = run.tally.scheme().length_cutoff;
   j["cutoff"] = std::move(cut);
-  return j.dump(2, ' ', false, ordered_json::error_handler_t::replace) + "\n";
+  std::string text = j.dump(2, ' ', false, ordered_json::error_handler_t::replace);
+  const std::string slot = ordered_json(kSlot).dump();
+  text.replace(text.find(slot), slot.size(), per_sentence_json(run));
+  return text + "\n";
 }
 
 }  // namespace treegate::report

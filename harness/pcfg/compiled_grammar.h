@@ -1,0 +1,123 @@
+// CompiledGrammar: a Grammar turned into what CKY needs: interned symbols, binary rules grouped
+// by left child (long right-hand sides binarized with internal symbols that never reach output
+// trees), a lexicon, unknown-word classes and the unary closure. Built once, then immutable:
+// share it across threads through std::shared_ptr<const CompiledGrammar>.
+#pragma once
+
+#include <cstdint>
+#include <memory>
+#include <string>
+#include <tuple>
+#include <unordered_map>
+#include <vector>
+
+#include "harness/pcfg/grammar.h"
+
+namespace treegate::pcfg {
+
+using Symbol = std::uint32_t;
+inline constexpr Symbol kNoSymbol = 0xffffffffu;
+
+/// A binary rule's parent with its weight; targets sharing (left, right) are contiguous.
+struct BinaryTarget {
+  Symbol lhs;
+  double logp;
+  double p;
+};
+/// The rules with a given (left, right) pair: targets [begin, end).
+struct RightGroup {
+  Symbol right;
+  std::uint32_t begin, end;
+};
+/// A path of unary rules from `top` down to the pre-unary symbol it is listed under:
+/// best chain (logp, first step `via`), summed chains (p) and number of chains (count).
+struct UnaryLink {
+  Symbol top;
+  Symbol via;             // first symbol below `top` on the best chain (== bottom when one step)
+  double logp;            // best chain; 0 for the empty chain (top == bottom)
+  double p;               // sum over all chains ((I - U)^-1); infinite when the cycles diverge
+  double count;           // number of chains; infinity with a usable unary cycle
+  std::uint64_t count64;  // the same modulo 2^64
+};
+struct LexEntry {
+  Symbol symbol;
+  double logp;
+  double p;
+};
+
+class CompiledGrammar {
+ public:
+  /// Throws InputError naming the grammar when it cannot be parsed with (no start symbol, or a
+  /// start symbol that no rule expands).
+  explicit CompiledGrammar(const Grammar& grammar);
+
+  std::size_t num_symbols() const { return names_.size(); }
+  const std::string& name(Symbol s) const { return names_[s]; }
+  /// Internal symbols (binarization, terminals inside long rules) are removed from trees.
+  bool internal(Symbol s) const { return internal_[s] != 0; }
+  /// Internal symbol standing for a terminal inside a long rule: its node becomes the word.
+  bool word_symbol(Symbol s) const { return internal_[s] == 2; }
+  Symbol find(const std::string& name) const;
+  Symbol start() const { return start_; }
+  const GrammarHeader& header() const { return header_; }
+  const std::string& source() const { return source_; }
+
+  const std::vector<RightGroup>& groups(Symbol left) const { return groups_[left]; }
+  const BinaryTarget& target(std::uint32_t i) const { return targets_[i]; }
+  std::size_t num_binary_rules() const { return targets_.size(); }
+  /// (left, right) children of binary target `i`.
+  std::pair<Symbol, Symbol> children(std::uint32_t i) const { return children_[i]; }
+  /// Binary rules by parent (for k-best): (left, right, logp).
+  struct ByLhs {
+    Symbol left, right;
+    double logp;
+    std::uint32_t target;
+  };
+  const std::vector<ByLhs>& rules_of(Symbol lhs) const { return by_lhs_[lhs]; }
+  /// Unary closure entries whose bottom is `bottom` (the empty chain first).
+  const std::vector<UnaryLink>& unary_above(Symbol bottom) const { return closure_[bottom]; }
+  bool has_unary_cycles() const { return unary_cycles_; }
+
+  /// Lexical entries of a word, or nullptr when the word is not in the lexicon.
+  const std::vector<LexEntry>* lexicon(const std::string& word) const;
+  /// Entries of an unknown-word class, or nullptr.
+  const std::vector<LexEntry>* unknown_class(const std::string& signature) const;
+  bool has_unknown_classes() const { return !unknown_.empty(); }
+
+  /// Log probability of an original rule written "LHS -> ITEM ..." (format_rule), or NaN.
+  double rule_logp(const std::string& rule_text) const;
+
+ private:
+  Symbol intern(const std::string& name, std::uint8_t internal);
+  void add_rule(const Rule& rule);
+  void add_binary(Symbol lhs, Symbol left, Symbol right, double p);
+  void finish_binary();
+  void build_unary_closure(const std::vector<std::tuple<Symbol, Symbol, double>>& unary);
+
+  GrammarHeader header_;
+  std::string source_;
+  std::vector<std::string> names_;
+  std::vector<std::uint8_t> internal_;
+  std::unordered_map<std::string, Symbol> ids_;
+  Symbol start_ = kNoSymbol;
+  std::vector<std::vector<RightGroup>> groups_;
+  std::vector<BinaryTarget> targets_;
+  std::vector<std::pair<Symbol, Symbol>> children_;
+  std::vector<std::vector<ByLhs>> by_lhs_;
+  std::vector<std::vector<UnaryLink>> closure_;
+  bool unary_cycles_ = false;
+  std::unordered_map<std::string, std::vector<LexEntry>> lexicon_, unknown_;
+  std::unordered_map<std::string, double> rule_p_;
+  // Staging while building.
+  struct Staged {
+    Symbol lhs, left, right;
+    double p;
+  };
+  std::vector<Staged> staged_;
+  std::vector<std::tuple<Symbol, Symbol, double>> unary_;
+};
+
+/// Reads and compiles a grammar file (InputError on bad input).
+std::shared_ptr<const CompiledGrammar> load_compiled_grammar(const std::string& path);
+
+}  // namespace treegate::pcfg

@@ -1,0 +1,159 @@
+// Reading the results file: one JSON object per line; errors name file:line:col.
+#include <algorithm>
+#include <fstream>
+#include <map>
+#include <nlohmann/json.hpp>
+#include <sstream>
+
+#include "evaluator/errors.h"
+#include "harness/results/results.h"
+#include "harness/results/results_json.h"
+
+namespace treegate::results {
+namespace {
+
+using json = nlohmann::json;
+
+template <class T>
+std::optional<T> opt(const json& j, const char* key) {
+  const json& v = j.at(key);
+  if (v.is_null()) return std::nullopt;
+  return v.get<T>();
+}
+
+Header read_header(const json& j) {
+  Header h;
+  h.format = j.at("treegate_results").get<int>();
+  if (h.format != kFormatVersion) {
+    throw std::runtime_error("expected results format " + std::to_string(kFormatVersion) +
+                             ", found " + std::to_string(h.format));
+  }
+  j.at("tool_version").get_to(h.tool_version);
+  j.at("grammar").get_to(h.grammar);
+  j.at("grammar_hash").get_to(h.grammar_hash);
+  j.at("parser").get_to(h.parser);
+  for (const auto& s : j.at("suites")) {
+    h.suites.push_back({s.at("name").get<std::string>(), s.at("file").get<std::string>(),
+                        s.at("hash").get<std::string>(), s.at("cases").get<std::size_t>()});
+  }
+  h.scheme = scheme_from_json(j.at("scheme"));
+  h.gate = gate_from_json(j.at("gate"));
+  j.at("case_min_f1").get_to(h.case_min_f1);
+  j.at("shard").at("index").get_to(h.shard.index);
+  j.at("shard").at("count").get_to(h.shard.count);
+  j.at("timings").get_to(h.timings);
+  return h;
+}
+
+CaseRecord read_case(const json& j) {
+  CaseRecord c;
+  j.at("suite").get_to(c.suite);
+  j.at("id").get_to(c.id);
+  j.at("n").get_to(c.n);
+  j.at("words").get_to(c.words);
+  j.at("constructions").get_to(c.constructions);
+  j.at("gold").get_to(c.gold);
+  j.at("predicted").get_to(c.predicted);
+  j.at("parse").get_to(c.parse);
+  j.at("score").get_to(c.score);
+  const std::string outcome = j.at("outcome").get<std::string>();
+  const auto o = outcome_from_name(outcome);
+  if (!o) throw std::runtime_error("unknown outcome '" + outcome + "'");
+  c.outcome = *o;
+  j.at("reason").get_to(c.reason);
+  c.logprob = opt<double>(j, "logprob");
+  c.inside_logprob = opt<double>(j, "inside_logprob");
+  c.parses = opt<double>(j, "parses");
+  j.at("gold_brackets").get_to(c.gold_brackets);
+  j.at("test_brackets").get_to(c.test_brackets);
+  j.at("matched").get_to(c.matched);
+  j.at("crossing").get_to(c.crossing);
+  j.at("scored_words").get_to(c.scored_words);
+  j.at("tags_correct").get_to(c.tags_correct);
+  j.at("f1").get_to(c.f1);
+  j.at("min_f1").get_to(c.min_f1);
+  c.known_failure = opt<std::string>(j, "known_failure");
+  for (const auto& k : j.at("checks")) {
+    c.checks.push_back({k.at("check").get<std::string>(), k.at("passed").get<bool>(),
+                        k.at("detail").get<std::string>()});
+  }
+  j.at("seconds").get_to(c.seconds);
+  return c;
+}
+
+// nlohmann reports a byte offset in the line; turn it into a 1-based column.
+std::size_t column_of(const json::parse_error& e) { return e.byte == 0 ? 1 : e.byte; }
+
+}  // namespace
+
+RunResults parse_results(const std::string& text, const std::string& source) {
+  RunResults out;
+  std::size_t line_no = 0, start = 0;
+  bool have_header = false;
+  while (start < text.size()) {
+    std::size_t end = text.find('\n', start);
+    if (end == std::string::npos) end = text.size();
+    std::string_view line(text.data() + start, end - start);
+    if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
+    ++line_no;
+    start = end + 1;
+    if (line.find_first_not_of(" \t") == std::string_view::npos) continue;
+    json j;
+    try {
+      j = json::parse(line);
+    } catch (const json::parse_error& e) {
+      throw InputError(source, line_no, column_of(e), "expected one JSON object per line");
+    }
+    if (!j.is_object()) throw InputError(source, line_no, 1, "expected a JSON object");
+    try {
+      if (!have_header) {
+        if (!j.contains("treegate_results")) {
+          throw InputError(source, line_no, 1,
+                           "expected a results header (key \"treegate_results\"); is this a "
+                           "results file written by `treegate run`?");
+        }
+        out.header = read_header(j);
+        have_header = true;
+      } else {
+        out.cases.push_back(read_case(j));
+      }
+    } catch (const json::exception& e) {
+      throw InputError(
+          source, line_no, 1,
+          std::string("expected a results ") + (have_header ? "case" : "header") + ": " + e.what());
+    } catch (const std::runtime_error& e) {
+      if (dynamic_cast<const InputError*>(&e)) throw;
+      throw InputError(source, line_no, 1, e.what());
+    }
+  }
+  if (!have_header)
+    throw InputError(source, 1, 1, "expected a results header, found an empty file");
+  return out;
+}
+
+RunResults load_results(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw InputError(path + ": cannot open file for reading");
+  std::ostringstream text;
+  text << in.rdbuf();
+  return parse_results(text.str(), path);
+}
+
+void sort_canonical(RunResults& results) {
+  std::map<std::string, std::size_t> position;
+  for (std::size_t i = 0; i < results.header.suites.size(); ++i) {
+    position.emplace(results.header.suites[i].name, i);
+  }
+  auto pos = [&](const std::string& s) {
+    auto it = position.find(s);
+    return it == position.end() ? position.size() : it->second;
+  };
+  std::stable_sort(results.cases.begin(), results.cases.end(),
+                   [&](const CaseRecord& a, const CaseRecord& b) {
+                     const auto pa = pos(a.suite), pb = pos(b.suite);
+                     if (pa != pb) return pa < pb;
+                     return a.n < b.n;
+                   });
+}
+
+}  // namespace treegate::results
