@@ -53,7 +53,8 @@ std::string stderr_hint(const ProcessResult& r) {
 
 class ExternalParser : public SentenceParser {
  public:
-  ExternalParser(const ExternalParserSettings& s, const std::atomic<bool>* stop) : s_(s), stop_(stop) {}
+  ExternalParser(const ExternalParserSettings& s, const std::atomic<bool>* stop)
+      : s_(s), stop_(stop) {}
 
   ParseOutcome parse(const ParseRequest& request) override {
     return std::move(parse_batch(std::span<const ParseRequest>(&request, 1)).front());
@@ -79,7 +80,8 @@ class ExternalParser : public SentenceParser {
 
  private:
   // Runs the command on batch[from..]; fills outcomes; returns the index to continue from.
-  std::size_t run_from(std::span<const ParseRequest> batch, std::size_t from, std::vector<ParseOutcome>& out) {
+  std::size_t run_from(std::span<const ParseRequest> batch, std::size_t from,
+                       std::vector<ParseOutcome>& out) {
     std::string input;
     for (std::size_t i = from; i < batch.size(); ++i) {
       const auto& words = *batch[i].words;
@@ -88,8 +90,10 @@ class ExternalParser : public SentenceParser {
     }
     const std::size_t count = batch.size() - from;
     const auto t0 = std::chrono::steady_clock::now();
-    const ProcessResult r = run_process(s_.command, input, {s_.timeout_seconds, 256u << 20, 4096}, stop_);
-    const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+    const ProcessResult r =
+        run_process(s_.command, input, {s_.timeout_seconds, 256u << 20, 4096}, stop_);
+    const double seconds =
+        std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
     std::size_t answered = 0;
     auto outcomes = read_parser_output(r, count, answered);
     for (std::size_t i = 0; i < count; ++i) {
@@ -121,9 +125,9 @@ std::vector<ParseOutcome> read_parser_output(const ProcessResult& r, std::size_t
   const auto lines = split_lines(r.out, partial);
   const bool clean = r.failure().empty();
   if (clean && (lines.size() != count || partial)) {
-    const std::string reason = "the parser wrote " + std::to_string(lines.size() + (partial ? 1 : 0)) +
-                               " lines for " + std::to_string(count) +
-                               " sentences, so no line can be matched to its sentence";
+    const std::string reason =
+        "the parser wrote " + std::to_string(lines.size() + (partial ? 1 : 0)) + " lines for " +
+        std::to_string(count) + " sentences, so no line can be matched to its sentence";
     for (auto& o : out) o.reason = reason;
     answered = count;
     return out;
@@ -131,12 +135,20 @@ std::vector<ParseOutcome> read_parser_output(const ProcessResult& r, std::size_t
   answered = std::min(lines.size(), count);
   for (std::size_t i = 0; i < answered; ++i) out[i] = outcome_of_line(lines[i], i + 1);
   if (!clean && lines.size() > count) {
-    for (auto& o : out) o = ParseOutcome{ParseStatus::kError, "the parser wrote more lines than sentences, then " + r.failure(), {}, {}, {}, {}, 0};
+    for (auto& o : out)
+      o = ParseOutcome{ParseStatus::kError,
+                       "the parser wrote more lines than sentences, then " + r.failure(),
+                       {},
+                       {},
+                       {},
+                       {},
+                       0};
   }
   return out;
 }
 
-ExternalParserFactory::ExternalParserFactory(ExternalParserSettings settings, const std::atomic<bool>* stop)
+ExternalParserFactory::ExternalParserFactory(ExternalParserSettings settings,
+                                             const std::atomic<bool>* stop)
     : settings_(std::move(settings)), stop_(stop) {}
 
 std::unique_ptr<SentenceParser> ExternalParserFactory::make() const {

@@ -63,16 +63,21 @@ Groups group(const RunResults& run) {
 std::string key(const CaseRecord& c) { return c.suite + '\0' + c.id; }
 
 void compare_cases(const RunResults& run, const RunResults* base, RunSummary& s) {
+  std::map<std::string, const CaseRecord*> by_key;
   std::map<std::string, Outcome> before;
   if (base) {
+    for (const auto& c : base->cases) by_key.emplace(key(c), &c);
     for (const auto& c : base->cases) before.emplace(key(c), c.outcome);
   }
+  s.baseline_case_f1.resize(run.cases.size());
   for (std::size_t i = 0; i < run.cases.size(); ++i) {
     const CaseRecord& c = run.cases[i];
+    if (auto b = by_key.find(key(c)); b != by_key.end()) s.baseline_case_f1[i] = b->second->f1;
     const auto it = before.find(key(c));
     const bool was_failing = it != before.end() && results::is_failing(it->second);
     const bool was_passing = it != before.end() && results::is_passing(it->second);
-    if (results::is_failing(c.outcome) && !was_failing) s.new_failures.push_back({i, c.suite, c.id});
+    if (results::is_failing(c.outcome) && !was_failing)
+      s.new_failures.push_back({i, c.suite, c.id});
     if (results::is_failing(c.outcome) && was_passing) s.regressions.push_back({i, c.suite, c.id});
     if (results::is_passing(c.outcome) && was_failing) s.fixes.push_back({i, c.suite, c.id});
   }
@@ -117,13 +122,15 @@ void construction_gates(const suite::GateSettings& gate, RunSummary& s) {
       if (f.f1 + 1e-9 < *g.min_f1) g.passed = false;
     }
     if (g.f1_delta) {
-      g.detail += ", change against the baseline " + std::string(*g.f1_delta >= 0 ? "+" : "") + num(*g.f1_delta);
+      g.detail += ", change against the baseline " + std::string(*g.f1_delta >= 0 ? "+" : "") +
+                  num(*g.f1_delta);
       if (g.max_drop) {
         g.detail += " (largest drop allowed " + num(*g.max_drop) + ")";
         if (-*g.f1_delta > *g.max_drop + 1e-9) g.passed = false;
       }
     }
-    if (!g.min_f1 && !(g.f1_delta && g.max_drop)) g.detail += " (no gate rule for this construction)";
+    if (!g.min_f1 && !(g.f1_delta && g.max_drop))
+      g.detail += " (no gate rule for this construction)";
     s.construction_gates.push_back(std::move(g));
   }
 }
@@ -139,7 +146,8 @@ void decide(const suite::GateSettings& gate, RunSummary& s) {
   for (const auto& f : s.suites) {
     const auto it = gate.suite_min_f1.find(f.name);
     if (it != gate.suite_min_f1.end() && f.f1 + 1e-9 < it->second) {
-      fail("suite " + f.name + ": F1 " + num(f.f1) + " is below gate.suite_min_f1 " + num(it->second));
+      fail("suite " + f.name + ": F1 " + num(f.f1) + " is below gate.suite_min_f1 " +
+           num(it->second));
     }
   }
   for (const auto& g : s.construction_gates) {
@@ -153,13 +161,15 @@ void decide(const suite::GateSettings& gate, RunSummary& s) {
     }
   }
   if (s.new_failures.size() > gate.allowed_new_failures) {
-    fail(std::to_string(s.new_failures.size()) + (s.new_failures.size() == 1 ? " case fails" : " cases fail") +
-         (s.has_baseline ? " that did not fail in the baseline" : "") + " (gate.allowed_new_failures " +
-         std::to_string(gate.allowed_new_failures) + ")");
+    fail(std::to_string(s.new_failures.size()) +
+         (s.new_failures.size() == 1 ? " case fails" : " cases fail") +
+         (s.has_baseline ? " that did not fail in the baseline" : "") +
+         " (gate.allowed_new_failures " + std::to_string(gate.allowed_new_failures) + ")");
   }
   if (gate.fail_on_unexpected_pass && s.unexpected_passes > 0) {
     fail(std::to_string(s.unexpected_passes) +
-         " known failures now pass (gate.fail_on_unexpected_pass); remove their known_failure markers");
+         " known failures now pass (gate.fail_on_unexpected_pass); remove their known_failure "
+         "markers");
   }
 }
 

@@ -25,9 +25,9 @@ struct GroupFigures {
 struct ConstructionGate {
   std::string name;
   double f1 = 0;
-  std::optional<double> min_f1;      // gate.construction_min_f1
-  std::optional<double> f1_delta;    // against the baseline
-  std::optional<double> max_drop;    // gate.max_construction_drop
+  std::optional<double> min_f1;    // gate.construction_min_f1
+  std::optional<double> f1_delta;  // against the baseline
+  std::optional<double> max_drop;  // gate.max_construction_drop
   bool passed = true;
   std::string detail;  // one line: F1 against its gate
 };
@@ -44,12 +44,13 @@ struct RunSummary {
   Counts totals;
   Figures figures;
   std::optional<Figures> baseline_figures;
-  std::vector<GroupFigures> suites;         // header order
-  std::vector<GroupFigures> constructions;  // sorted by name
+  std::vector<GroupFigures> suites;                  // header order
+  std::vector<GroupFigures> constructions;           // sorted by name
   std::vector<ConstructionGate> construction_gates;  // one per construction
-  std::vector<CaseRef> regressions;  // passed in the baseline, fail now
-  std::vector<CaseRef> fixes;        // failed in the baseline, pass now
+  std::vector<CaseRef> regressions;                  // passed in the baseline, fail now
+  std::vector<CaseRef> fixes;                        // failed in the baseline, pass now
   std::vector<CaseRef> new_failures;  // fail now and did not fail in the baseline (or none)
+  std::vector<std::optional<double>> baseline_case_f1;  // per case of the run; null: not there
   bool has_baseline = false;
   bool gate_passed = true;
   std::vector<std::string> gate_reasons;  // one line per failed rule

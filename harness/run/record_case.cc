@@ -62,11 +62,13 @@ void apply_span_checks(const suite::Case& c, const Tree& predicted, bool strip, 
   };
   for (const auto& k : c.require) {
     const bool ok = present(k);
-    r.checks.push_back({"require " + k.text(), ok, ok ? "" : "required bracket " + k.text() + " is missing"});
+    r.checks.push_back(
+        {"require " + k.text(), ok, ok ? "" : "required bracket " + k.text() + " is missing"});
   }
   for (const auto& k : c.forbid) {
     const bool ok = !present(k);
-    r.checks.push_back({"forbid " + k.text(), ok, ok ? "" : "forbidden bracket " + k.text() + " is present"});
+    r.checks.push_back(
+        {"forbid " + k.text(), ok, ok ? "" : "forbidden bracket " + k.text() + " is present"});
   }
 }
 
@@ -92,7 +94,8 @@ void settle_outcome(const suite::Case& c, CaseRecord& r) {
 
 }  // namespace
 
-CaseRecord record_case(const WorkItem& item, ParseOutcome outcome, Scorer& scorer, const RunOptions& options) {
+CaseRecord record_case(const WorkItem& item, ParseOutcome outcome, Scorer& scorer,
+                       const RunOptions& options) {
   const suite::Case& c = *item.item;
   CaseRecord r;
   r.suite = item.suite->name;

@@ -66,7 +66,8 @@ void work(Shared& sh) {
       auto outcomes = parser->parse_batch(requests);
       if (stopped(sh.options)) return;
       for (std::size_t k = 0; k < slots.size(); ++k) {
-        sh.records[slots[k]] = record_case(sh.items[slots[k]], std::move(outcomes[k]), scorer, sh.options);
+        sh.records[slots[k]] =
+            record_case(sh.items[slots[k]], std::move(outcomes[k]), scorer, sh.options);
         sh.filled[slots[k]] = 1;
       }
     }

@@ -18,7 +18,8 @@ results::Shard parse_shard(const std::string& text) {
     ok = r1.ec == std::errc() && r1.ptr == b + slash && r2.ec == std::errc() && r2.ptr == e &&
          s.count >= 1 && s.index >= 1 && s.index <= s.count;
   }
-  if (!ok) throw InputError("--shard: expected K/N with 1 <= K <= N (e.g. 2/3), found '" + text + "'");
+  if (!ok)
+    throw InputError("--shard: expected K/N with 1 <= K <= N (e.g. 2/3), found '" + text + "'");
   return s;
 }
 

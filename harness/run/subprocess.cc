@@ -50,7 +50,8 @@ pid_t spawn(const std::vector<std::string>& argv, Pipe& in, Pipe& out, Pipe& err
   posix_spawnattr_setsigmask(&attr, &none);
   posix_spawnattr_setsigdefault(&attr, &defaults);
   posix_spawnattr_setpgroup(&attr, 0);
-  posix_spawnattr_setflags(&attr, POSIX_SPAWN_SETSIGMASK | POSIX_SPAWN_SETSIGDEF | POSIX_SPAWN_SETPGROUP);
+  posix_spawnattr_setflags(&attr,
+                           POSIX_SPAWN_SETSIGMASK | POSIX_SPAWN_SETSIGDEF | POSIX_SPAWN_SETPGROUP);
   std::vector<char*> args;
   for (const auto& a : argv) args.push_back(const_cast<char*>(a.c_str()));
   args.push_back(nullptr);
@@ -96,7 +97,9 @@ std::string ProcessResult::failure() const {
   if (stopped) return "stopped (interrupted)";
   if (timed_out) return "parser timed out";
   if (too_much_output) return "parser wrote too much output";
-  if (signal != 0) return std::string("parser crashed (signal ") + std::to_string(signal) + ", " + strsignal(signal) + ")";
+  if (signal != 0)
+    return std::string("parser crashed (signal ") + std::to_string(signal) + ", " +
+           strsignal(signal) + ")";
   if (exited && exit_code != 0) return "parser exited with status " + std::to_string(exit_code);
   return "";
 }
@@ -149,7 +152,8 @@ ProcessResult run_process(const std::vector<std::string>& argv, const std::strin
       if (fd == in.fd[1]) {
         const ssize_t k = ::write(fd, input.data() + written, input.size() - written);
         if (k > 0) written += static_cast<std::size_t>(k);
-        if ((k < 0 && errno != EAGAIN && errno != EINTR) || written == input.size()) in.close_end(1);
+        if ((k < 0 && errno != EAGAIN && errno != EINTR) || written == input.size())
+          in.close_end(1);
         continue;
       }
       const ssize_t k = ::read(fd, buf, sizeof buf);
@@ -163,7 +167,8 @@ ProcessResult run_process(const std::vector<std::string>& argv, const std::strin
         r.out.append(buf, static_cast<std::size_t>(k));
         if (r.out.size() > limits.max_stdout_bytes) r.too_much_output = failed = true;
       } else if (r.err.size() < limits.max_stderr_kept) {
-        r.err.append(buf, std::min<std::size_t>(static_cast<std::size_t>(k), limits.max_stderr_kept - r.err.size()));
+        r.err.append(buf, std::min<std::size_t>(static_cast<std::size_t>(k),
+                                                limits.max_stderr_kept - r.err.size()));
       }
     }
     if (failed) break;
