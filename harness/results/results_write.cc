@@ -9,6 +9,7 @@
 #include "harness/results/atomic_file.h"
 #include "harness/results/results.h"
 #include "harness/results/results_json.h"
+#include "harness/suite/hash.h"
 
 namespace treegate::results {
 
@@ -118,22 +119,7 @@ void write_results(const std::string& path, const RunResults& results) {
   write_file_atomically(path, results_text(results));
 }
 
-std::string fnv1a64_hex(const std::string& bytes) {
-  std::uint64_t h = 14695981039346656037ull;
-  for (unsigned char ch : bytes) {
-    h ^= ch;
-    h *= 1099511628211ull;
-  }
-  char buf[17];
-  std::snprintf(buf, sizeof buf, "%016llx", static_cast<unsigned long long>(h));
-  return buf;
-}
-
-std::string hash_file(const std::string& path) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path + ": cannot open file for reading");
-  std::string bytes((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
-  return fnv1a64_hex(bytes);
-}
+std::string fnv1a64_hex(const std::string& bytes) { return suite::fnv1a64_hex(bytes); }
+std::string hash_file(const std::string& path) { return suite::hash_file(path); }
 
 }  // namespace treegate::results
