@@ -17,8 +17,8 @@
 namespace treegate {
 
 struct ReadLimits {
-  std::size_t max_depth = 100000;      // deeper nesting is an error, never a stack overflow
-  std::size_t max_nodes = 20000000;    // nodes in one tree
+  std::size_t max_depth = 100000;    // deeper nesting is an error, never a stack overflow
+  std::size_t max_nodes = 20000000;  // nodes in one tree
 };
 
 class BracketReader {
@@ -49,7 +49,8 @@ Tree parse_tree(std::string_view text, const std::string& source = "<string>",
                 LabelTable& labels = LabelTable::shared());
 
 /// Reads every tree of a file. Throws InputError (also when the file cannot be opened).
-std::vector<Tree> read_tree_file(const std::string& path, LabelTable& labels = LabelTable::shared());
+std::vector<Tree> read_tree_file(const std::string& path,
+                                 LabelTable& labels = LabelTable::shared());
 
 /// The one-line form: "(S (NP (DT the) (NN dog)) (VP (VBZ barks)))"; an empty tree is "()".
 std::string to_bracketed(const Tree& tree);

@@ -13,13 +13,16 @@ constexpr std::size_t kFirstChunk = 4096;  // small first reads: parse_tree on s
 constexpr std::size_t kChunk = 1 << 20;    // doubled up to this for large files
 constexpr std::size_t kCacheSlots = 4096;  // a power of two
 
-bool is_space(int c) { return c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v'; }
+bool is_space(int c) {
+  return c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v';
+}
 
 // Bytes that end an atom: whitespace, parentheses and NUL (a table: this is the hot loop).
 struct DelimTable {
   bool is[256] = {};
   DelimTable() {
-    for (int c : {' ', '\t', '\n', '\r', '\f', '\v', '(', ')', '\0'}) is[static_cast<unsigned char>(c)] = true;
+    for (int c : {' ', '\t', '\n', '\r', '\f', '\v', '(', ')', '\0'})
+      is[static_cast<unsigned char>(c)] = true;
   }
 };
 const DelimTable kDelims;
@@ -195,8 +198,9 @@ struct BracketReader::Impl {
       const Node& node = out.node(top.node);
       if (c == '(') {
         if (node.first_child != kNoNode && out.node(node.first_child).is_leaf()) {
-          fail(line, col, "expected ')' after the word of " + open_desc(out, top) +
-                              " (a tag holds exactly one word) but found '('");
+          fail(line, col,
+               "expected ')' after the word of " + open_desc(out, top) +
+                   " (a tag holds exactly one word) but found '('");
         }
         l = line;
         cl = col;
@@ -204,7 +208,8 @@ struct BracketReader::Impl {
         open_node(out, l, cl);
       } else if (c == ')') {
         if (node.first_child == kNoNode) {
-          fail(line, col, "expected a word or '(' inside " + open_desc(out, top) + " but found ')'");
+          fail(line, col,
+               "expected a word or '(' inside " + open_desc(out, top) + " but found ')'");
         }
         advance();
         stack.pop_back();
@@ -217,9 +222,10 @@ struct BracketReader::Impl {
         cl = col;
         const std::string_view word = read_atom();
         if (node.first_child != kNoNode) {
-          fail(l, cl, "expected '(' or ')' inside " + open_desc(out, top) + " but found word " +
-                          quote_for_message(std::string(word)) +
-                          " (a word must be the only child of its tag)");
+          fail(l, cl,
+               "expected '(' or ')' inside " + open_desc(out, top) + " but found word " +
+                   quote_for_message(std::string(word)) +
+                   " (a word must be the only child of its tag)");
         }
         out.add_leaf(word, top.node);
       }
@@ -243,7 +249,8 @@ Tree parse_tree(std::string_view text, const std::string& source, LabelTable& la
   std::istringstream in{std::string(text)};
   BracketReader reader(in, source, labels);
   Tree tree(labels);
-  if (!reader.next(tree)) throw InputError(source, 1, 1, "expected a bracketed tree but found nothing");
+  if (!reader.next(tree))
+    throw InputError(source, 1, 1, "expected a bracketed tree but found nothing");
   Tree extra(labels);
   bool more = false;
   try {

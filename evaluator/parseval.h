@@ -40,7 +40,7 @@ inline bool crosses(const Bracket& a, const Bracket& b) {
 
 struct SentenceScore {
   SentenceStatus status = SentenceStatus::kScored;
-  std::string reason;              // for errors and no-parse: what happened
+  std::string reason;  // for errors and no-parse: what happened
   std::uint32_t gold_brackets = 0;
   std::uint32_t test_brackets = 0;
   std::uint32_t matched = 0;
@@ -74,8 +74,8 @@ class Scorer {
 
  private:
   struct Words {
-    std::vector<LabelId> tag;         // raw tag of each word (kEmpty when untagged)
-    std::vector<std::int32_t> kept;   // indices of words that are not empty elements
+    std::vector<LabelId> tag;        // raw tag of each word (kEmpty when untagged)
+    std::vector<std::int32_t> kept;  // indices of words that are not empty elements
   };
   void collect_words(const Tree& tree, Words& out);
   void collect_brackets(const Tree& tree, const std::vector<std::int32_t>& position,

@@ -64,7 +64,8 @@ Figures figures(const Counts& c) {
   f.recall = recall_pct(c.matched, c.test, c.gold);
   f.f1 = f1_pct(c.matched, c.test, c.gold);
   f.exact_match = pct(c.exact, c.scored);
-  f.crossing_avg = c.scored == 0 ? 0.0 : static_cast<double>(c.crossing) / static_cast<double>(c.scored);
+  f.crossing_avg =
+      c.scored == 0 ? 0.0 : static_cast<double>(c.crossing) / static_cast<double>(c.scored);
   f.zero_crossing_pct = pct(c.zero_crossing, c.scored);
   f.le2_crossing_pct = pct(c.le2_crossing, c.scored);
   f.tag_accuracy = pct(c.tags_correct, c.words);

@@ -28,13 +28,14 @@ int fail(const std::string& command, const std::string& message) {
   return kExitBadInput;
 }
 
-int parse_command_line(int argc, char** argv, const Usage& usage, const po::options_description& opts,
-                       const po::positional_options_description& positional, po::variables_map& vm) {
+int parse_command_line(int argc, char** argv, const Usage& usage,
+                       const po::options_description& opts,
+                       const po::positional_options_description& positional,
+                       po::variables_map& vm) {
   po::options_description all(opts);
   all.add_options()("help,h", "show this help");
   try {
-    po::store(po::command_line_parser(argc, argv).options(all).positional(positional).run(),
-              vm);
+    po::store(po::command_line_parser(argc, argv).options(all).positional(positional).run(), vm);
     if (vm.count("help")) {
       print_help(usage, all);
       return kExitOk;
@@ -42,8 +43,8 @@ int parse_command_line(int argc, char** argv, const Usage& usage, const po::opti
     po::notify(vm);
   } catch (const po::error& e) {
     std::cerr << "treegate " << usage.name << ": " << e.what() << "\n"
-              << "usage: treegate " << usage.name << " " << usage.synopsis
-              << "  (see 'treegate " << usage.name << " --help')\n";
+              << "usage: treegate " << usage.name << " " << usage.synopsis << "  (see 'treegate "
+              << usage.name << " --help')\n";
     return kExitBadInput;
   }
   return -1;

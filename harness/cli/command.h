@@ -12,7 +12,7 @@ namespace treegate::cli {
 
 struct Command {
   const char* name;
-  const char* purpose;  // one line, shown in `treegate --help`
+  const char* purpose;                // one line, shown in `treegate --help`
   int (*run)(int argc, char** argv);  // argv[0] is the subcommand's name
 };
 
@@ -31,16 +31,17 @@ namespace po = boost::program_options;
 
 /// What a subcommand tells the option parser and the help text.
 struct Usage {
-  std::string name;         // "score"
-  std::string synopsis;     // "GOLD TEST [options]"
-  std::string purpose;      // one line
-  std::string example;      // a runnable example using the demo files
+  std::string name;      // "score"
+  std::string synopsis;  // "GOLD TEST [options]"
+  std::string purpose;   // one line
+  std::string example;   // a runnable example using the demo files
   std::string exit_codes = "0 done, 2 bad usage or unreadable input";
 };
 
 /// Parses argv into `vm`. Returns -1 to go on, or an exit code (after --help, or after a
 /// usage error, which is printed to stderr with the help hint).
-int parse_command_line(int argc, char** argv, const Usage& usage, const po::options_description& opts,
+int parse_command_line(int argc, char** argv, const Usage& usage,
+                       const po::options_description& opts,
                        const po::positional_options_description& positional, po::variables_map& vm);
 
 /// Prints "treegate CMD: message" to stderr and returns kExitBadInput.

@@ -17,8 +17,9 @@ void print_overview() {
   std::sort(list.begin(), list.end(),
             [](const auto& a, const auto& b) { return std::strcmp(a.name, b.name) < 0; });
   for (const auto& c : list) {
-    std::cout << "  " << c.name << std::string(10 - std::min<std::size_t>(9, std::strlen(c.name)), ' ')
-              << c.purpose << "\n";
+    std::cout << "  " << c.name
+              << std::string(10 - std::min<std::size_t>(9, std::strlen(c.name)), ' ') << c.purpose
+              << "\n";
   }
   std::cout << "\nExit codes: 0 pass, 1 gate failed, 2 bad usage or bad input.\n";
 }

@@ -12,22 +12,24 @@ namespace treegate::cli {
 namespace {
 
 int run_score(int argc, char** argv) {
-  const Usage usage{"score", "GOLD TEST [--scheme FILE] [--per-sentence] [--format text|json]",
-                    "Score the bracketed trees of TEST against those of GOLD (tree i with tree i) "
-                    "with labeled PARSEVAL.",
-                    "treegate score suites/examples/gold.trees suites/examples/test.trees --per-sentence"};
+  const Usage usage{
+      "score", "GOLD TEST [--scheme FILE] [--per-sentence] [--format text|json]",
+      "Score the bracketed trees of TEST against those of GOLD (tree i with tree i) "
+      "with labeled PARSEVAL.",
+      "treegate score suites/examples/gold.trees suites/examples/test.trees --per-sentence"};
   po::options_description opts("options");
   std::string gold, test, scheme_file, format = "text";
   opts.add_options()("gold", po::value(&gold)->required(), "gold trees (bracketed)")(
       "test", po::value(&test)->required(), "test trees, same order; () means no parse")(
       "scheme", po::value(&scheme_file), "YAML file of scoring settings (see README)")(
-      "per-sentence", "add a table with one row per sentence")(
-      "format", po::value(&format), "text (default) or json");
+      "per-sentence", "add a table with one row per sentence")("format", po::value(&format),
+                                                               "text (default) or json");
   po::positional_options_description pos;
   pos.add("gold", 1).add("test", 1);
   po::variables_map vm;
   if (int code = parse_command_line(argc, argv, usage, opts, pos, vm); code >= 0) return code;
-  if (format != "text" && format != "json") return fail("score", "--format must be text or json, not '" + format + "'");
+  if (format != "text" && format != "json")
+    return fail("score", "--format must be text or json, not '" + format + "'");
   try {
     const Scheme scheme = scheme_file.empty() ? Scheme{} : load_scheme_file(scheme_file);
     std::ifstream g(gold, std::ios::binary), t(test, std::ios::binary);
@@ -37,7 +39,8 @@ int run_score(int argc, char** argv) {
     // Keep every sentence only when it is listed; otherwise only the errors (flat memory).
     const bool list_all = format == "json" || vm.count("per-sentence") > 0;
     auto keep = [&](std::size_t index, const SentenceScore& s) {
-      if (list_all || s.status == SentenceStatus::kYieldMismatch || s.status == SentenceStatus::kError) {
+      if (list_all || s.status == SentenceStatus::kYieldMismatch ||
+          s.status == SentenceStatus::kError) {
         sentences.push_back({index, s});
       }
     };
@@ -51,7 +54,8 @@ int run_score(int argc, char** argv) {
   return kExitOk;
 }
 
-const Registration reg({"score", "PARSEVAL figures of a file of test trees against gold trees", &run_score});
+const Registration reg({"score", "PARSEVAL figures of a file of test trees against gold trees",
+                        &run_score});
 
 }  // namespace
 }  // namespace treegate::cli

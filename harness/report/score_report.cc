@@ -58,10 +58,12 @@ std::string per_sentence_json(const ScoreRun& run) {
                    "\"test_brackets\": {}, \"matched\": {}, \"crossing\": {}, \"words\": {}, "
                    "\"tags_correct\": {}",
                    &item == &run.sentences.front() ? "" : ",", item.index, status_name(x.status),
-                   x.gold_brackets, x.test_brackets, x.matched, x.crossing, x.words, x.tags_correct);
+                   x.gold_brackets, x.test_brackets, x.matched, x.crossing, x.words,
+                   x.tags_correct);
     if (x.status != SentenceStatus::kScored && !x.reason.empty()) {
-      fmt::format_to(std::back_inserter(out), ", \"reason\": {}",
-                     ordered_json(x.reason).dump(-1, ' ', false, ordered_json::error_handler_t::replace));
+      fmt::format_to(
+          std::back_inserter(out), ", \"reason\": {}",
+          ordered_json(x.reason).dump(-1, ' ', false, ordered_json::error_handler_t::replace));
     }
     fmt::format_to(std::back_inserter(out), "}}");
   }
@@ -78,17 +80,18 @@ std::string score_text(const ScoreRun& run, bool per_sentence) {
   s += fmt::format("{} sentences: {} scored, {} errors, {} without a parse\n", all.sentences,
                    all.scored, all.errors, all.unparsed);
   s += fmt::format("brackets: {} gold, {} test, {} matched\n\n", all.gold, all.test, all.matched);
-  s += fmt::format("  {:<22}{:>12}{:>14}\n", "", "all", fmt::format("<= {} words", run.tally.scheme().length_cutoff));
+  s += fmt::format("  {:<22}{:>12}{:>14}\n", "", "all",
+                   fmt::format("<= {} words", run.tally.scheme().length_cutoff));
   s += fmt::format("  {:<22}{:>12}{:>14}\n", "sentences counted", all.scored, cut.scored);
   s += figure_rows(all, cut);
 
   s += fmt::format("\n  {:<14}{:>8}{:>8}{:>8}{:>10}{:>10}{:>8}\n", "label", "gold", "test",
                    "matched", "precision", "recall", "F1");
   for (const auto& [label, lc] : run.tally.per_label()) {
-    s += fmt::format("  {:<14}{:>8}{:>8}{:>8}{:>10.2f}{:>10.2f}{:>8.2f}\n",
-                     std::string(run.labels->name(label)), lc.gold, lc.test, lc.matched,
-                     precision_pct(lc.matched, lc.test, lc.gold),
-                     recall_pct(lc.matched, lc.test, lc.gold), f1_pct(lc.matched, lc.test, lc.gold));
+    s += fmt::format(
+        "  {:<14}{:>8}{:>8}{:>8}{:>10.2f}{:>10.2f}{:>8.2f}\n", std::string(run.labels->name(label)),
+        lc.gold, lc.test, lc.matched, precision_pct(lc.matched, lc.test, lc.gold),
+        recall_pct(lc.matched, lc.test, lc.gold), f1_pct(lc.matched, lc.test, lc.gold));
   }
   bool any_error = false;
   for (const auto& item : run.sentences) {
@@ -106,7 +109,8 @@ std::string score_text(const ScoreRun& run, bool per_sentence) {
       s += fmt::format("  {:>6} {:<15}{:>6}{:>6}{:>6}{:>8}{:>9.2f}{:>6}{:>6}{:>8}\n", item.index,
                        status_name(x.status), x.words, x.gold_brackets, x.test_brackets, x.matched,
                        f1_pct(x.matched, x.test_brackets, x.gold_brackets), x.crossing,
-                       x.tags_correct, x.counts(run.tally.scheme()) && x.exact_match() ? "yes" : "no");
+                       x.tags_correct,
+                       x.counts(run.tally.scheme()) && x.exact_match() ? "yes" : "no");
     }
   }
   return s;

@@ -77,9 +77,10 @@ std::string nearest(const std::string& key, const std::vector<std::string>& know
   return best;
 }
 
-void check_keys(const std::string& file, const YAML::Node& node, const std::vector<std::string>& known,
-                const std::string& what) {
-  if (!node.IsMap()) fail_at(file, node, "expected " + what + " as a map of keys, found " + kind_of(node));
+void check_keys(const std::string& file, const YAML::Node& node,
+                const std::vector<std::string>& known, const std::string& what) {
+  if (!node.IsMap())
+    fail_at(file, node, "expected " + what + " as a map of keys, found " + kind_of(node));
   for (const auto& kv : node) {
     if (!kv.first.IsScalar()) fail_at(file, kv.first, "expected a key name in " + what);
     const std::string key = kv.first.Scalar();
@@ -138,7 +139,8 @@ std::string read_string(const std::string& file, const YAML::Node& node) {
 std::vector<std::string> read_strings(const std::string& file, const YAML::Node& node) {
   std::vector<std::string> out;
   if (node.IsScalar()) return {node.Scalar()};
-  if (!node.IsSequence()) fail_at(file, node, "expected a list of text values, found " + kind_of(node));
+  if (!node.IsSequence())
+    fail_at(file, node, "expected a list of text values, found " + kind_of(node));
   for (const auto& item : node) out.push_back(read_string(file, item));
   return out;
 }

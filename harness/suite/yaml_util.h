@@ -14,15 +14,16 @@ YAML::Node load_file(const std::string& path);
 YAML::Node load_string(const std::string& text, const std::string& source);
 
 /// Throws InputError at `node`'s position: "file:line:col: message".
-[[noreturn]] void fail_at(const std::string& file, const YAML::Node& node, const std::string& message);
+[[noreturn]] void fail_at(const std::string& file, const YAML::Node& node,
+                          const std::string& message);
 
 /// The known key nearest to `key` by edit distance, or "" when none is close.
 std::string nearest(const std::string& key, const std::vector<std::string>& known);
 
 /// Requires `node` to be a map whose keys are all in `known`; otherwise an InputError
 /// naming the key, its position and the nearest known key.
-void check_keys(const std::string& file, const YAML::Node& node, const std::vector<std::string>& known,
-                const std::string& what);
+void check_keys(const std::string& file, const YAML::Node& node,
+                const std::vector<std::string>& known, const std::string& what);
 
 bool read_bool(const std::string& file, const YAML::Node& node);
 long long read_int(const std::string& file, const YAML::Node& node, long long min, long long max);

@@ -43,8 +43,10 @@ TEST_CASE("one-line form is canonical and round-trips") {
     const char* in;
     const char* out;
   } table[] = {
-      {"(S (NP (DT the) (NN dog)) (VP (VBZ barks)))", "(S (NP (DT the) (NN dog)) (VP (VBZ barks)))"},
-      {"(S\n  (NP (DT the)\n      (NN dog))\n  (VP (VBZ barks)))", "(S (NP (DT the) (NN dog)) (VP (VBZ barks)))"},
+      {"(S (NP (DT the) (NN dog)) (VP (VBZ barks)))",
+       "(S (NP (DT the) (NN dog)) (VP (VBZ barks)))"},
+      {"(S\n  (NP (DT the)\n      (NN dog))\n  (VP (VBZ barks)))",
+       "(S (NP (DT the) (NN dog)) (VP (VBZ barks)))"},
       {"( (S (NP (PRP it)) (VP (VBZ is))) )", "( (S (NP (PRP it)) (VP (VBZ is))))"},
       {"((X (Y z)))", "( (X (Y z)))"},
       {"()", "()"},
@@ -82,7 +84,8 @@ TEST_CASE("tree model: words, tags, preterminals, subtrees") {
 }
 
 TEST_CASE("indented form puts each constituent on its own line") {
-  const Tree t = parse_tree("(S (NP (DT the) (NN dog)) (VP (VBZ barks) (PP (IN at) (NP (PRP us)))))");
+  const Tree t =
+      parse_tree("(S (NP (DT the) (NN dog)) (VP (VBZ barks) (PP (IN at) (NP (PRP us)))))");
   CHECK(to_indented(t) ==
         "(S\n"
         "  (NP (DT the) (NN dog))\n"
@@ -95,7 +98,8 @@ TEST_CASE("indented form puts each constituent on its own line") {
 TEST_CASE("syntax errors name file:line:col, the tree and what was expected") {
   CHECK(error_of("(S (NP (DT the) (NN dog))") ==
         "<string>:1:26: tree 1: expected ')' to close '(S' opened at 1:1 but found end of file");
-  CHECK(error_of("dog (S (X y))") == "<string>:1:1: tree 1: expected '(' to start a tree but found 'dog'");
+  CHECK(error_of("dog (S (X y))") ==
+        "<string>:1:1: tree 1: expected '(' to start a tree but found 'dog'");
   CHECK(error_of("(S (NP the (NN dog)))") ==
         "<string>:1:12: tree 1: expected ')' after the word of '(NP' opened at 1:4 (a tag holds "
         "exactly one word) but found '('");
@@ -126,11 +130,13 @@ TEST_CASE("many trees per file; an error names its tree and reading resumes at t
       "(S (NN e)\n");
   REQUIRE(got.size() == 4);
   CHECK(got[0] == "(S (NN a))");
-  CHECK(got[1] == "ERROR f.trees:2:11: tree 2: expected '(' or ')' inside '(S' opened at 2:1 but "
-                  "found word 'c' (a word must be the only child of its tag)");
+  CHECK(got[1] ==
+        "ERROR f.trees:2:11: tree 2: expected '(' or ')' inside '(S' opened at 2:1 but "
+        "found word 'c' (a word must be the only child of its tag)");
   CHECK(got[2] == "(S (NN d))");
-  CHECK(got[3] == "ERROR f.trees:6:1: tree 4: expected ')' to close '(S' opened at 5:1 but found "
-                  "end of file");
+  CHECK(got[3] ==
+        "ERROR f.trees:6:1: tree 4: expected ')' to close '(S' opened at 5:1 but found "
+        "end of file");
 }
 
 TEST_CASE("deep nesting is a result or a clear error, never a stack overflow") {
@@ -155,7 +161,8 @@ TEST_CASE("long input is read in chunks: a word across a chunk boundary stays wh
   std::string text;
   std::string expected_last;
   for (int i = 0; i < 40000; ++i) {
-    const std::string w = "word" + std::to_string(i) + std::string(static_cast<std::size_t>(i % 13), 'x');
+    const std::string w =
+        "word" + std::to_string(i) + std::string(static_cast<std::size_t>(i % 13), 'x');
     text += "(S (NN " + w + "))\n";
     expected_last = "(S (NN " + w + "))";
   }

@@ -33,7 +33,8 @@ std::string random_tree(std::mt19937& rng, int n) {
     std::string joined = std::string("(") + labels[rng() % 6];
     for (std::size_t i = start; i < start + len; ++i) joined += " " + items[i];
     joined += ")";
-    items.erase(items.begin() + static_cast<long>(start), items.begin() + static_cast<long>(start + len));
+    items.erase(items.begin() + static_cast<long>(start),
+                items.begin() + static_cast<long>(start + len));
     items.insert(items.begin() + static_cast<long>(start), joined);
   }
   return items[0];
@@ -80,11 +81,12 @@ TEST_CASE("worked example: crossing brackets") {
   CHECK(s.gold_brackets == 4);
   CHECK(s.test_brackets == 3);
   // Two test brackets crossing the same gold bracket count twice; one crossing two counts once.
-  const auto t = score("(S (A (X a) (X b)) (B (X c) (X d)))", "(S (X a) (C (X b) (D (X c) (X d))))");
+  const auto t =
+      score("(S (A (X a) (X b)) (B (X c) (X d)))", "(S (X a) (C (X b) (D (X c) (X d))))");
   // Gold A[0,2] B[2,4]; test C[1,4] crosses A; D[2,4] crosses nothing.
   CHECK(t.crossing == 1);
-  const auto u = score("(S (A (X a) (X b)) (X c) (B (X d) (X e)))",
-                       "(S (X a) (C (X b) (X c) (X d)) (X e))");
+  const auto u =
+      score("(S (A (X a) (X b)) (X c) (B (X d) (X e)))", "(S (X a) (C (X b) (X c) (X d)) (X e))");
   // Test C[1,4] crosses both A[0,2] and B[3,5]: one crossing constituent.
   CHECK(u.crossing == 1);
 }
@@ -110,11 +112,12 @@ TEST_CASE("default scheme: root wrapper, preterminals, punctuation, function tag
     CHECK(s.matched == 4);
     Scheme keep;
     keep.strip_function_tags = false;
-    CHECK(score("(S (NP-SBJ (NN a)) (VP (VB b)))", "(S (NP (NN a)) (VP (VB b)))", keep).matched == 2);
+    CHECK(score("(S (NP-SBJ (NN a)) (VP (VB b)))", "(S (NP (NN a)) (VP (VB b)))", keep).matched ==
+          2);
   }
   SUBCASE("empty elements and the constituents they leave empty are removed") {
-    const auto s = score("(S (NP-SBJ (-NONE- *T*-1)) (VP (VB a) (NP (NN b))))",
-                         "(S (VP (VB a) (NP (NN b))))");
+    const auto s =
+        score("(S (NP-SBJ (-NONE- *T*-1)) (VP (VB a) (NP (NN b))))", "(S (VP (VB a) (NP (NN b))))");
     CHECK(s.gold_brackets == 3);
     CHECK(s.matched == 3);
     CHECK(s.words == 2);
@@ -123,7 +126,8 @@ TEST_CASE("default scheme: root wrapper, preterminals, punctuation, function tag
     CHECK(score("(S (VP (VB a) (PRT (RP b))))", "(S (VP (VB a) (ADVP (RB b))))").matched == 3);
     Scheme none;
     none.equivalent_labels.clear();
-    CHECK(score("(S (VP (VB a) (PRT (RP b))))", "(S (VP (VB a) (ADVP (RB b))))", none).matched == 2);
+    CHECK(score("(S (VP (VB a) (PRT (RP b))))", "(S (VP (VB a) (ADVP (RB b))))", none).matched ==
+          2);
   }
   SUBCASE("brackets are a multiset: a doubled unary must be matched twice") {
     const auto s = score("(S (NP (NP (NN a))) (VP (VB b)))", "(S (NP (NN a)) (VP (VB b)))");
