@@ -54,7 +54,7 @@ table.sortable caption{text-align:left;font-weight:600;padding:4px 0}
 h3{font-size:15px;margin:18px 0 6px}
 .table-note{color:var(--muted);font-size:13px;margin:2px 0 10px}
 .filters{display:flex;flex-wrap:wrap;gap:8px 14px;align-items:end;background:var(--card);
-border:1px solid var(--line);border-radius:8px;padding:10px 12px;margin-bottom:10px;position:sticky;top:0;z-index:2}
+border:1px solid var(--line);border-radius:8px;padding:10px 12px;margin-bottom:10px}
 .filters label{display:flex;flex-direction:column;font-size:12px;color:var(--muted)}
 .filters select,.filters input{font:inherit;font-size:14px;padding:3px 6px;border:1px solid var(--line);border-radius:4px;background:#fff;color:var(--ink)}
 .filters input{min-width:16em}

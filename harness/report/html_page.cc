@@ -1,20 +1,16 @@
 #include "harness/report/html_page.h"
 
 #include <algorithm>
-#include <cstdio>
-#include <filesystem>
-#include <fstream>
 #include <set>
 
 #include <fmt/format.h>
-#include <unistd.h>
 
-#include "evaluator/errors.h"
 #include "harness/report/html_assets.h"
 #include "harness/report/html_case.h"
 #include "harness/report/html_chart.h"
 #include "harness/report/html_escape.h"
 #include "harness/report/html_table.h"
+#include "harness/results/atomic_file.h"
 
 namespace treegate::report::html {
 namespace {
@@ -206,28 +202,7 @@ std::string render_html_report(const ReportView& v, const PageOptions& o) {
 }
 
 void write_html_report(const std::string& path, const ReportView& view, const PageOptions& o) {
-  const std::string text = render_html_report(view, o);
-  namespace fs = std::filesystem;
-  const fs::path target(path);
-  const fs::path tmp =
-      target.parent_path() / fs::path("." + target.filename().string() + ".tmp" +
-                                      std::to_string(static_cast<long>(::getpid())));
-  {
-    std::ofstream out(tmp, std::ios::binary | std::ios::trunc);
-    out << text;
-    out.flush();
-    if (!out) {
-      std::error_code ec;
-      fs::remove(tmp, ec);
-      throw InputError(path + ": cannot write the HTML report there (is the folder writable?)");
-    }
-  }
-  std::error_code ec;
-  fs::rename(tmp, target, ec);
-  if (ec) {
-    fs::remove(tmp, ec);
-    throw InputError(path + ": cannot write the HTML report there: " + ec.message());
-  }
+  results::write_file_atomically(path, render_html_report(view, o));
 }
 
 }  // namespace treegate::report::html
