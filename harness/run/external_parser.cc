@@ -136,9 +136,10 @@ std::vector<ParseOutcome> read_parser_output(const ProcessResult& r, std::size_t
   for (std::size_t i = 0; i < answered; ++i) out[i] = outcome_of_line(lines[i], i + 1);
   if (!clean && lines.size() > count) {
     for (auto& o : out) {
-      o = ParseOutcome{};  // clang: Tree's constructor is explicit, so no `{}` for it
-      o.status = ParseStatus::kError;
-      o.reason = "the parser wrote more lines than sentences, then " + r.failure();
+      ParseOutcome fresh;  // not ParseOutcome{...}: clang refuses `{}` for Tree's explicit ctor
+      fresh.status = ParseStatus::kError;
+      fresh.reason = "the parser wrote more lines than sentences, then " + r.failure();
+      o = std::move(fresh);
     }
   }
   return out;
