@@ -12,6 +12,7 @@
 #include "harness/report/html_from_results.h"
 #include "harness/report/outputs.h"
 #include "harness/report/run_reports.h"
+#include "harness/results/atomic_file.h"
 #include "harness/results/results.h"
 #include "harness/run/gate.h"
 #include "harness/run/regression_run.h"
@@ -105,12 +106,16 @@ int run_run(int argc, char** argv) {
       std::cerr << "treegate run: interrupted; no results or reports were written\n";
       return kExitBadInput;
     }
+    // Reports are rendered from what the results file holds (text that is not UTF-8 is
+    // replaced there), so `run` and a later `report` print the same bytes.
+    const std::string text = results::results_text(run);
+    run = results::parse_results(text, "(this run)");
     const run::RunSummary summary = run::summarize(run, o.baseline.empty() ? nullptr : &baseline);
     report::ConsoleOptions console;
     console.color = isatty(STDOUT_FILENO) && std::getenv("NO_COLOR") == nullptr;
     console.timings = req.timings;
     std::cout << report::console_summary(run, summary, console) << std::flush;
-    if (!o.results.empty()) results::write_results(o.results, run);
+    if (!o.results.empty()) results::write_file_atomically(o.results, text);
     report::write_outputs(run, summary, {o.junit, o.summary_json});
     if (!o.html.empty()) {
       report::html::write_run_report(o.html, run, o.baseline.empty() ? nullptr : &baseline,
