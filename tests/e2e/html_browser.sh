@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # The HTML report in a real browser: Debian's chromium (driven by playwright-core, see
 # tests/e2e/browser/) loads from file:// the demo run's report, the demo's v2-against-v1
-# report, and a report full of hostile text, and checks them (no console errors, no requests,
+# report, the demo's `compare` report and a report full of hostile text, and checks them (no console errors, no requests,
 # one row per case of the summary JSON, opened cases show SVG trees with one word per word of
 # the sentence, sorting, filtering, escaping). Screenshots: $BUILD_DIR/test-output/html/.
 # Without chromium, node or playwright-core the test fails when CI is set, else says "not run".
@@ -54,6 +54,8 @@ demo="$SOURCE_DIR/suites/demo"
 (cd "$demo" && run_treegate run --config treegate.yaml --grammar v2.pcfg \
   --baseline "$work/v1.jsonl" --results "$work/v2.jsonl" --summary-json "$work/v2.json" \
   --html "$out/demo-baseline.html")
+# `compare` of the two results files: old beside new beside gold, error classes, significance.
+run_treegate compare "$work/v1.jsonl" "$work/v2.jsonl" --html "$out/demo-compare.html"
 # `report` renders the same page from the results file without parsing again.
 run_treegate report "$work/v2.jsonl" --baseline "$work/v1.jsonl" --html "$work/again.html"
 grep -q 'id="case-list"' "$work/again.html" || { echo "FAIL: report --html wrote no case list"; exit 1; }
@@ -98,6 +100,7 @@ EOF
 status=0
 check demo-run "$out/demo-run.html" "$work/v1.jsonl" "$work/v1.json" || status=1
 check demo-baseline "$out/demo-baseline.html" "$work/v2.jsonl" "$work/v2.json" || status=1
+check demo-compare "$out/demo-compare.html" "$work/v2.jsonl" "$work/v2.json" || status=1
 check hostile "$out/hostile.html" "$work/hostile.jsonl" "$work/hostile.json" \
   "<script>alert" "</script>" "&amp;" "]]>" '"quoted"' "<img/src=x/onerror=alert>" \
   "<i>hostile</i>" "<script>id</script>" "漢字" "naïve" "'single'" || status=1
