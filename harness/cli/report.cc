@@ -19,7 +19,7 @@ int run_report(int argc, char** argv) {
       "report",
       "RESULTS [--baseline RESULTS] [--junit F] [--summary-json F] [--html F] [--no-timings]",
       "Render the reports of a results file again (the gate is decided again too).",
-      "treegate report out/results.jsonl --junit out/junit.xml",
+      "treegate report results.jsonl --junit junit.xml",
       "0 gate passed, 1 gate failed, 2 bad usage or unreadable input"};
   std::string file, baseline_file, junit, summary_json, html;
   bool no_timings = false;

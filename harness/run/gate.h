@@ -49,7 +49,6 @@ struct RunSummary {
   std::vector<ConstructionGate> construction_gates;  // one per construction
   std::vector<CaseRef> regressions;                  // passed in the baseline, fail now
   std::vector<CaseRef> fixes;                        // failed in the baseline, pass now
-  std::vector<CaseRef> new_failures;  // fail now and did not fail in the baseline (or none)
   std::vector<std::optional<double>> baseline_case_f1;  // per case of the run; null: not there
   bool has_baseline = false;
   bool gate_passed = true;

@@ -28,7 +28,9 @@ parser:
   command: [./$parser]
   mode: $mode
   batch_size: 3
-  timeout_seconds: 1
+  timeout_seconds: 2
+gate:
+  min_f1: 100
 Y
   set +e
   "$TREEGATE" run --jobs 2 --no-timings --results r-$mode.jsonl > out-$mode.txt 2> err-$mode.txt
