@@ -62,8 +62,11 @@ expect_stderr "weight nan, parse" 0 \
 demo="${SOURCE_DIR:-$e2e_dir/../..}/suites/demo"
 /usr/bin/time -v "$TREEGATE" parse --grammar "$demo/v1.pcfg" long.txt >long.out 2>long.err || true
 head -1 long.err >long.msg
-[ "$(cat long.msg)" = "treegate parse: line 1: error: sentence of 10000 words needs ~122464 MiB of chart, over the cap of 4096 MiB; raise --max-chart-mb" ] ||
-  fail "10,000 words: $(cat long.msg)"
-[ "$(cat long.out)" = "()" ] || fail "10,000 words: stdout '$(head -c 100 long.out)'"
-echo "ok: 10,000-word sentence refused; peak RSS $(($(peak_kb long.err) >> 10)) MB"
+# The chart estimate depends on the parser's layout, so only its form is fixed here.
+if grep -Eqx "treegate parse: line 1: error: sentence of 10000 words needs ~[0-9]+ MiB of chart, over the cap of 4096 MiB; raise --max-chart-mb" long.msg &&
+  [ "$(cat long.out)" = "()" ]; then
+  echo "ok: 10,000-word sentence refused ($(cut -d: -f4- long.msg)); peak RSS $(($(peak_kb long.err) >> 10)) MB"
+else
+  fail "10,000 words: '$(cat long.msg)', stdout '$(head -c 100 long.out)'"
+fi
 finish
