@@ -52,7 +52,7 @@ void work(Shared& sh) {
     for (std::size_t i = begin; i < end; ++i) {
       const suite::Case& c = *sh.items[i].item;
       if (!c.load_error.empty()) {
-        sh.records[i] = record_case(sh.items[i], {}, scorer, sh.options);
+        sh.records[i] = record_case(sh.items[i], ParseOutcome(), scorer, sh.options);
         sh.filled[i] = 1;
         continue;
       }

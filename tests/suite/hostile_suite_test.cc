@@ -42,3 +42,25 @@ TEST_CASE("hostile suite: treebank paths outside the suite's folder are refused"
         treegate::InputError);
   }
 }
+
+TEST_CASE("yaml_error_message_newline_regression: YAML errors stay on one line") {
+  // Found by fuzz_config: yaml-cpp quotes the offending character, here a newline after a
+  // NUL byte, so the message had a line break. Every InputError is now one line.
+  const std::string text("grammar: g.pcfg\n1#\0\n", 20);
+  try {
+    (void)ts::load_suite_string(text, "nul.yaml");
+    FAIL("expected an InputError");
+  } catch (const treegate::InputError& e) {
+    CHECK(std::string(e.what()) == "nul.yaml:3:1: YAML syntax: unknown escape character: \\x0a");
+  }
+  // A quoted scalar with a newline, echoed in a type error.
+  bool threw = false;
+  try {
+    (void)ts::load_suite_string("suite: x\nmin_f1: \"a\\nb\"\ncases: []\n", "f1.yaml");
+  } catch (const treegate::InputError& e) {
+    threw = true;
+    CHECK(std::string(e.what()).find('\n') == std::string::npos);
+    CHECK(std::string(e.what()).find("a\\x0ab") != std::string::npos);
+  }
+  CHECK(threw);
+}

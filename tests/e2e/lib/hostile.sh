@@ -33,6 +33,21 @@ expected
   echo "ok: $name"
 }
 
+# expect_stderr NAME EXIT_CODE EXPECTED_STDERR -- COMMAND... : like expect_error, for
+# commands that also write results on stdout (the stderr text may have several lines).
+expect_stderr() {
+  local name=$1 code=$2 expected=$3
+  shift 4
+  local rc=0
+  "$@" >out.txt 2>err.txt || rc=$?
+  [ "$rc" -eq "$code" ] || fail "$name: exit $rc, expected $code (stderr: $(head -c 300 err.txt))"
+  [ "$(cat err.txt)" = "$expected" ] || fail "$name: stderr is
+  $(cat err.txt)
+expected
+  $expected"
+  echo "ok: $name"
+}
+
 # Peak resident memory of a finished command in KB, read from GNU time's -v report in FILE.
 peak_kb() { sed -n 's/^\s*Maximum resident set size (kbytes): //p' "$1"; }
 
