@@ -105,9 +105,9 @@ int run_estimate(int argc, char** argv) {
       std::cerr << "treegate estimate: ... and " << errors.size() - a.max_errors << " more\n";
     const pcfg::EstimateSummary summary = estimator.summary();
     if (!errors.empty() && vm.count("skip-bad-trees") == 0)
-      return fail("estimate",
-                  std::to_string(errors.size()) +
-                      " unusable trees; nothing written (--skip-bad-trees leaves them out)");
+      return fail("estimate", std::to_string(errors.size()) +
+                                  (errors.size() == 1 ? " unusable tree" : " unusable trees") +
+                                  "; nothing written (--skip-bad-trees leaves them out)");
     if (summary.trees_used == 0)
       return fail("estimate", "no usable trees in the input; nothing written");
     results::write_file_atomically(a.output, pcfg::write_grammar(estimator.grammar()));

@@ -24,15 +24,17 @@ std::uint32_t read_id(const std::string& key, std::size_t index) {
   return id;
 }
 
+std::pair<std::uint32_t, std::uint32_t> tag_and_word(const std::string& key) {
+  std::uint64_t pair;
+  std::memcpy(&pair, key.data(), sizeof pair);
+  return {static_cast<std::uint32_t>(pair >> 32), static_cast<std::uint32_t>(pair & 0xffffffffu)};
+}
+
 }  // namespace
 
 Estimator::Estimator(TransformSpec spec) : spec_(std::move(spec)) { symbol(spec_.start); }
 
-std::uint32_t Estimator::symbol(const std::string& name) {
-  auto [it, added] = symbol_ids_.try_emplace(name, static_cast<std::uint32_t>(symbols_.size()));
-  if (added) symbols_.push_back(name);
-  return it->second;
-}
+std::uint32_t Estimator::symbol(const std::string& name) { return symbols_.insert(name).first; }
 
 std::optional<TreeProblem> Estimator::add(const Tree& tree) {
   ++counts_.trees_read;
@@ -70,13 +72,14 @@ void Estimator::count_tree(const EditTree& tree) {
     const std::uint32_t lhs = ids_[static_cast<std::size_t>(id)];
     if (tree.is_preterminal(id)) {
       const std::string& text = tree.words[static_cast<std::size_t>(tree.at(n.kids[0]).word)];
-      auto [it, added] = word_ids_.try_emplace(text, static_cast<std::uint32_t>(words_.size()));
-      if (added) {
-        words_.push_back(text);
-        word_counts_.push_back(0);
-      }
-      ++word_counts_[it->second];
-      ++lexical_[static_cast<std::uint64_t>(lhs) << 32 | it->second];
+      const auto [word, added] = words_.insert(text);
+      if (added) word_counts_.push_back(0);
+      ++word_counts_[word];
+      const std::uint64_t pair = static_cast<std::uint64_t>(lhs) << 32 | word;
+      const auto [rule, new_rule] =
+          lexical_.insert(std::string_view(reinterpret_cast<const char*>(&pair), sizeof pair));
+      if (new_rule) lexical_counts_.push_back(0);
+      ++lexical_counts_[rule];
       ++counts_.words;
       continue;
     }
@@ -86,9 +89,9 @@ void Estimator::count_tree(const EditTree& tree) {
       const std::uint32_t kid = ids_[static_cast<std::size_t>(n.kids[i])];
       std::memcpy(key_.data() + (i + 1) * sizeof kid, &kid, sizeof kid);
     }
-    auto it = phrasal_.find(key_);
-    if (it == phrasal_.end()) it = phrasal_.emplace(key_, 0).first;
-    ++it->second;
+    const auto [rule, added] = phrasal_.insert(key_);
+    if (added) phrasal_counts_.push_back(0);
+    ++phrasal_counts_[rule];
   }
 }
 
@@ -101,21 +104,22 @@ TransformSpec::Wrapper Estimator::wrapper() const {
 Grammar Estimator::grammar() const {
   std::vector<Entry> entries;
   entries.reserve(phrasal_.size() + lexical_.size());
-  for (const auto& [key, count] : phrasal_) {
-    Entry e{read_id(key, 0), EntryKind::phrasal, {}, count};
+  for (std::uint32_t rule = 0; rule < phrasal_.size(); ++rule) {
+    const std::string& key = phrasal_.key(rule);
+    Entry e{read_id(key, 0), EntryKind::phrasal, {}, phrasal_counts_[rule]};
     for (std::size_t i = 1; i < key.size() / sizeof(std::uint32_t); ++i) {
-      e.rhs.push_back({ItemKind::nonterminal, symbols_[read_id(key, i)]});
+      e.rhs.push_back({ItemKind::nonterminal, symbols_.key(read_id(key, i))});
     }
     entries.push_back(std::move(e));
   }
   std::map<std::pair<std::uint32_t, std::string>, std::uint64_t> unknown;
   std::vector<std::string> signatures(words_.size());
-  for (const auto& [key, count] : lexical_) {
-    const auto tag = static_cast<std::uint32_t>(key >> 32);
-    const auto word = static_cast<std::uint32_t>(key & 0xffffffffu);
-    entries.push_back({tag, EntryKind::word, {{ItemKind::terminal, words_[word]}}, count});
+  for (std::uint32_t rule = 0; rule < lexical_.size(); ++rule) {
+    const auto [tag, word] = tag_and_word(lexical_.key(rule));
+    const std::uint64_t count = lexical_counts_[rule];
+    entries.push_back({tag, EntryKind::word, {{ItemKind::terminal, words_.key(word)}}, count});
     if (word_counts_[word] > static_cast<std::uint64_t>(spec_.rare_words)) continue;
-    if (signatures[word].empty()) signatures[word] = word_signature(words_[word]);
+    if (signatures[word].empty()) signatures[word] = word_signature(words_.key(word));
     unknown[{tag, signatures[word]}] += count;
   }
   for (const auto& [key, count] : unknown) {
@@ -124,11 +128,11 @@ Grammar Estimator::grammar() const {
   }
   std::vector<std::uint64_t> totals(symbols_.size(), 0);
   for (const Entry& e : entries) totals[e.lhs] += e.count;
-  const std::uint32_t start = symbol_ids_.at(spec_.start);
+  const std::uint32_t start = 0;  // added first by the constructor
   std::sort(entries.begin(), entries.end(), [&](const Entry& a, const Entry& b) {
     if (a.lhs != b.lhs) {
       if (a.lhs == start || b.lhs == start) return a.lhs == start;
-      return symbols_[a.lhs] < symbols_[b.lhs];
+      return symbols_.key(a.lhs) < symbols_.key(b.lhs);
     }
     if (a.kind != b.kind) return a.kind < b.kind;
     if (a.count != b.count) return a.count > b.count;
@@ -145,7 +149,7 @@ Grammar Estimator::grammar() const {
   g.rules.reserve(entries.size());
   for (Entry& e : entries) {
     Rule r;
-    r.lhs = symbols_[e.lhs];
+    r.lhs = symbols_.key(e.lhs);
     r.rhs = std::move(e.rhs);
     r.weight = static_cast<double>(e.count) / static_cast<double>(totals[e.lhs]);
     r.written_weight = r.weight;
@@ -162,19 +166,18 @@ EstimateSummary Estimator::summary() const {
     s.preterminals_before += (kind & 2) != 0;
   }
   std::vector<char> lhs_kind(symbols_.size(), 0);
-  for (const auto& [key, count] : phrasal_) {
-    lhs_kind[read_id(key, 0)] |= 1;
-    s.rules_seen_once += count == 1;
+  for (std::uint32_t rule = 0; rule < phrasal_.size(); ++rule) {
+    lhs_kind[read_id(phrasal_.key(rule), 0)] |= 1;
+    s.rules_seen_once += phrasal_counts_[rule] == 1;
   }
   std::map<std::pair<std::uint32_t, std::string>, char> unknown;
   std::map<std::string, char> classes;
-  for (const auto& [key, count] : lexical_) {
-    const auto tag = static_cast<std::uint32_t>(key >> 32);
-    const auto word = static_cast<std::uint32_t>(key & 0xffffffffu);
+  for (std::uint32_t rule = 0; rule < lexical_.size(); ++rule) {
+    const auto [tag, word] = tag_and_word(lexical_.key(rule));
     lhs_kind[tag] |= 2;
-    s.rules_seen_once += count == 1;
+    s.rules_seen_once += lexical_counts_[rule] == 1;
     if (word_counts_[word] > static_cast<std::uint64_t>(spec_.rare_words)) continue;
-    const std::string sig = word_signature(words_[word]);
+    const std::string sig = word_signature(words_.key(word));
     unknown[{tag, sig}] = 1;
     classes[sig] = 1;
   }

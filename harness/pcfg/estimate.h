@@ -6,9 +6,9 @@
 #include <cstdint>
 #include <optional>
 #include <string>
-#include <unordered_map>
 #include <vector>
 
+#include "harness/pcfg/estimate_index.h"
 #include "harness/pcfg/grammar.h"
 #include "harness/pcfg/transforms_tree.h"
 
@@ -53,13 +53,13 @@ class Estimator {
   TransformSpec::Wrapper wrapper() const;
 
   TransformSpec spec_;
-  std::unordered_map<std::string, std::uint32_t> symbol_ids_;
-  std::vector<std::string> symbols_;
-  std::unordered_map<std::string, std::uint32_t> word_ids_;
-  std::vector<std::string> words_;
+  StringIds symbols_;  // the start symbol is id 0
+  StringIds words_;
   std::vector<std::uint64_t> word_counts_;
-  std::unordered_map<std::string, std::uint64_t> phrasal_;    // packed symbol ids -> count
-  std::unordered_map<std::uint64_t, std::uint64_t> lexical_;  // tag << 32 | word -> count
+  StringIds phrasal_;  // keys: packed symbol ids, LHS first
+  std::vector<std::uint64_t> phrasal_counts_;
+  StringIds lexical_;  // keys: the 8 bytes of tag << 32 | word
+  std::vector<std::uint64_t> lexical_counts_;
   std::vector<char> raw_kind_;  // by source LabelId: bit 1 phrasal, bit 2 tag
   std::vector<std::size_t> wrappers_ = std::vector<std::size_t>(5, 0);
   std::string key_;  // reused buffers

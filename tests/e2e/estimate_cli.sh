@@ -49,6 +49,9 @@ expect_error() {  # expect_error MESSAGE ARGS...
   grep -qF -- "$want" "$tmp/err" || fail "$*: expected '$want', got: $(cat "$tmp/err")"
 }
 : > "$tmp/empty.trees"
+printf 'dog\n(NN cat)\n' > "$tmp/single.trees"
+expect_error "single.trees:1:1: tree 1: expected '(' to start a tree but found 'dog'" estimate "$tmp/single.trees" -o "$tmp/x.pcfg"
+grep -qF "1 unusable tree; nothing written" "$tmp/err" || fail "singular: $(cat "$tmp/err")"
 expect_error "no usable trees in the input; nothing written" estimate "$tmp/empty.trees" -o "$tmp/x.pcfg"
 expect_error "--plain and --parent contradict each other" estimate "$demo/logbook.trees" -o "$tmp/x.pcfg" --plain --parent 2
 expect_error "--keep-empties and --empty-tag contradict each other" estimate "$demo/logbook.trees" -o "$tmp/x.pcfg" --keep-empties --empty-tag X

@@ -158,3 +158,28 @@ TEST_CASE("bad trees are reported with file:line:col and the other trees still c
 
 }  // namespace
 }  // namespace treegate::pcfg
+
+namespace treegate::pcfg {
+namespace {
+
+TEST_CASE("StringIds: dense ids in first-seen order, stable across growth") {
+  StringIds ids;
+  for (int i = 0; i < 5000; ++i) {
+    const auto [id, added] = ids.insert("k" + std::to_string(i));
+    CHECK(id == static_cast<std::uint32_t>(i));
+    CHECK(added);
+  }
+  for (int i = 4999; i >= 0; --i) {
+    const auto [id, added] = ids.insert("k" + std::to_string(i));
+    CHECK(id == static_cast<std::uint32_t>(i));
+    CHECK(!added);
+  }
+  CHECK(ids.insert(std::string_view("\0\0", 2)).second);
+  CHECK(!ids.insert(std::string_view("\0\0", 2)).second);
+  CHECK(ids.insert(std::string_view("\0", 1)).second);
+  CHECK(ids.size() == 5002);
+  CHECK(ids.key(17) == "k17");
+}
+
+}  // namespace
+}  // namespace treegate::pcfg
