@@ -39,12 +39,15 @@ std::string wrong_list(const std::vector<BracketDiff>& wrong) {
   return out;
 }
 
-void table(std::string& out, const std::string& title, const std::vector<Row>& rows) {
+// `brackets`: the count column shows NEW's gold brackets instead of cases (per-label rows).
+void table(std::string& out, const std::string& title, const std::vector<Row>& rows,
+           bool brackets = false) {
   if (rows.empty()) return;
   std::size_t w = title.size();
   for (const Row& r : rows) w = std::max(w, r.key.size());
   out += fmt::format("\n{:<{}}  {:>6}  {:>6} {:>6} {:>6}  {:>6} {:>6} {:>6}  {:>7}\n", title, w,
-                     "cases", "P old", "R old", "F1 old", "P new", "R new", "F1 new", "F1 diff");
+                     brackets ? "gold" : "cases", "P old", "R old", "F1 old", "P new", "R new",
+                     "F1 new", "F1 diff");
   for (const Row& r : rows) {
     out += fmt::format(
         "{:<{}}  {:>6}  {:>6.2f} {:>6.2f} {:>6.2f}  {:>6.2f} {:>6.2f} {:>6.2f}  {:>+7.2f}\n", r.key,
@@ -79,7 +82,7 @@ std::string comparison_text(const Comparison& c, std::size_t max_listed) {
   table(out, "overall", {c.overall});
   table(out, "suite", c.suites);
   table(out, "construction", c.constructions);
-  table(out, "label", c.labels);
+  table(out, "label", c.labels, true);
   table(out, "length", c.lengths);
   if (!c.error_classes.empty()) {
     out += fmt::format("\n{:<18}  {:>14}  {:>14}  {:>11}\n", "error class", "OLD errors (br)",
