@@ -63,8 +63,7 @@ int run_run(int argc, char** argv) {
       "run", "[--config F] [--grammar G] [--suite PATH]... [--baseline RESULTS] [options]",
       "Parse every case of the suites, score and check it, compare with a baseline, write the "
       "results file and reports, and decide the gate.",
-      "treegate run --config suites/demo/treegate.yaml --results out/results.jsonl --junit "
-      "out/junit.xml",
+      "treegate run --config suites/demo/treegate.yaml --results results.jsonl --junit junit.xml",
       "0 gate passed, 1 gate failed (the reasons are printed), 2 bad usage, bad input or "
       "interrupted"};
   Options o;

@@ -41,8 +41,8 @@ std::optional<TreeProblem> Estimator::add(const Tree& tree) {
   const TransformSpec::Wrapper style = wrapper_style(edit, spec_.start);
   apply_transforms(edit, spec_);
   if (edit.root < 0) {
-    return TreeProblem{tree.root(), "tree has no words once empty elements (" +
-                                        spec_.empty_tag + ") are removed"};
+    return TreeProblem{
+        tree.root(), "tree has no words once empty elements (" + spec_.empty_tag + ") are removed"};
   }
   ++wrappers_[static_cast<std::size_t>(style)];
   for (NodeId id = 0; id < static_cast<NodeId>(tree.size()); ++id) {
@@ -57,10 +57,17 @@ std::optional<TreeProblem> Estimator::add(const Tree& tree) {
 }
 
 void Estimator::count_tree(const EditTree& tree) {
-  for (std::int32_t id : tree.preorder()) {
+  // Each label is looked up once, whether it is counted as a left-hand side or a child.
+  ids_.assign(tree.nodes.size(), 0);
+  const std::vector<std::int32_t> order = tree.preorder();
+  for (std::int32_t id : order) {
+    const EditNode& n = tree.at(id);
+    if (!n.is_leaf()) ids_[static_cast<std::size_t>(id)] = symbol(n.label);
+  }
+  for (std::int32_t id : order) {
     const EditNode& n = tree.at(id);
     if (n.is_leaf()) continue;
-    const std::uint32_t lhs = symbol(n.label);
+    const std::uint32_t lhs = ids_[static_cast<std::size_t>(id)];
     if (tree.is_preterminal(id)) {
       const std::string& text = tree.words[static_cast<std::size_t>(tree.at(n.kids[0]).word)];
       auto [it, added] = word_ids_.try_emplace(text, static_cast<std::uint32_t>(words_.size()));
@@ -76,7 +83,7 @@ void Estimator::count_tree(const EditTree& tree) {
     key_.resize((n.kids.size() + 1) * sizeof lhs);
     std::memcpy(key_.data(), &lhs, sizeof lhs);
     for (std::size_t i = 0; i < n.kids.size(); ++i) {
-      const std::uint32_t kid = symbol(tree.at(n.kids[i]).label);
+      const std::uint32_t kid = ids_[static_cast<std::size_t>(n.kids[i])];
       std::memcpy(key_.data() + (i + 1) * sizeof kid, &kid, sizeof kid);
     }
     auto it = phrasal_.find(key_);
@@ -112,7 +119,8 @@ Grammar Estimator::grammar() const {
     unknown[{tag, signatures[word]}] += count;
   }
   for (const auto& [key, count] : unknown) {
-    entries.push_back({key.first, EntryKind::unknown, {{ItemKind::unknown_class, key.second}}, count});
+    entries.push_back(
+        {key.first, EntryKind::unknown, {{ItemKind::unknown_class, key.second}}, count});
   }
   std::vector<std::uint64_t> totals(symbols_.size(), 0);
   for (const Entry& e : entries) totals[e.lhs] += e.count;
@@ -179,7 +187,8 @@ EstimateSummary Estimator::summary() const {
   s.unknown_rule_types = unknown.size();
   s.rule_types = s.phrasal_rule_types + s.word_rule_types + s.unknown_rule_types;
   s.lexicon = words_.size();
-  for (std::uint64_t c : word_counts_) s.rare_words += c <= static_cast<std::uint64_t>(spec_.rare_words);
+  for (std::uint64_t c : word_counts_)
+    s.rare_words += c <= static_cast<std::uint64_t>(spec_.rare_words);
   s.unknown_classes = classes.size();
   return s;
 }

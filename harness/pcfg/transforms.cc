@@ -6,6 +6,10 @@
 
 namespace treegate::pcfg {
 
+void check_transforms(const GrammarHeader& header, const std::string& source) {
+  from_pairs(header.transforms, source);
+}
+
 void undo_transforms(Tree& tree, const GrammarHeader& header) {
   if (header.transforms.empty() || tree.empty()) return;
   const TransformSpec spec = from_pairs(header.transforms, "grammar header");

@@ -39,6 +39,13 @@ std::optional<TreeProblem> check_node(const Tree& tree, NodeId id) {
                                std::string(1, label[mark]) +
                                "', which grammar transforms reserve for their own labels"};
   }
+  if (const char c = label.empty() ? ' ' : label[0]; c == '"' || c == '<' || c == '@' ||
+                                                     label == "->" ||
+                                                     label.find('#') != std::string_view::npos) {
+    return TreeProblem{id, "label " + quote_for_message(std::string(label)) +
+                               " cannot be a grammar symbol (symbols may not contain '#', start "
+                               "with '\"', '<' or '@', or be '->'); rename it in the treebank"};
+  }
   return std::nullopt;
 }
 

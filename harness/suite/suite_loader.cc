@@ -241,6 +241,13 @@ Suite load_suite_string(const std::string& text, const std::string& path,
   std::set<std::string> ids;
   if (root["cases"]) read_cases(path, root["cases"], suite, ids);
   if (root["treebank"]) read_treebanks(path, root["treebank"], options, suite, ids);
+  if (suite.cases.empty()) {  // an empty suite would pass any gate unnoticed
+    yaml::fail_at(path,
+                  root["cases"]      ? root["cases"]
+                  : root["treebank"] ? root["treebank"]
+                                     : root,
+                  "expected at least one case, found none (an empty suite tests nothing)");
+  }
   suite.hash = fnv1a64_hex(text + suite.hash);  // the suite text and its treebank files
   return suite;
 }

@@ -104,6 +104,8 @@ TEST_CASE("undo_transforms reads the grammar header") {
   header.transforms = {{"parent", "7"}};
   CHECK_THROWS_WITH(undo_transforms(tree, header),
                     "grammar header: @transform parent='7': expected a whole number from 1 to 3");
+  CHECK_THROWS_WITH(check_transforms(header, "g.pcfg"),
+                    "g.pcfg: @transform parent='7': expected a whole number from 1 to 3");
   header.transforms = {{"sideways", "1"}};
   CHECK_THROWS_WITH(undo_transforms(tree, header),
                     "grammar header: @transform has an unknown key 'sideways'; expected functions, "
@@ -135,6 +137,12 @@ TEST_CASE("training trees are checked") {
   CHECK(problem_of("(S ( (NN dog)))") == "constituent without a label: expected (LABEL child ...)");
   CHECK(problem_of("(S (N^P (NN dog)))") ==
         "label 'N^P' contains '^', which grammar transforms reserve for their own labels");
+  CHECK(problem_of("(S (# #))") ==
+        "label '#' cannot be a grammar symbol (symbols may not contain '#', start with '\"', '<' "
+        "or '@', or be '->'); rename it in the treebank");
+  CHECK(problem_of("(S (<X y))") ==
+        "label '<X' cannot be a grammar symbol (symbols may not contain '#', start with '\"', "
+        "'<' or '@', or be '->'); rename it in the treebank");
   CHECK(problem_of("()") == "empty tree (): expected a tree with words");
   // Words beside constituents and empty constituents are refused by the reader already.
   CHECK_THROWS_AS(parse_tree("(S (NP the (NN dog)))"), InputError);

@@ -22,6 +22,10 @@ const char* kVerbPp =
 const char* kRelabel =
     "(S (NP (PRP She)) (VP (VBD saw) (NP (NP (DT the) (NN crane)) (ADJP (IN with) (NP (DT a) "
     "(NN hook))))))";
+// Gold without the NP over "She": 6 of 7 matched, 6 test brackets (the same F1 as kVerbPp).
+const char* kNoSubject =
+    "(S (PRP She) (VP (VBD saw) (NP (NP (DT the) (NN crane)) (PP (IN with) (NP (DT a) (NN "
+    "hook))))))";
 
 CaseRecord record(const std::string& id, const std::string& predicted, Outcome outcome,
                   double seconds, std::vector<std::string> tags = {"pp"}) {
@@ -55,8 +59,8 @@ TEST_CASE("transitions, figures and error classes of two hand-built runs") {
   const RunResults new_run = run_of({
       record("fixed", kGold, Outcome::kPass, 0.020),
       record("broken", kVerbPp, Outcome::kFail, 0.020),
-      record("worse", "", Outcome::kError, 0.020),  // no parse: zero test brackets
-      record("same-f1", kRelabel, Outcome::kFail, 0.020),
+      record("worse", kRelabel, Outcome::kFail, 0.020),
+      record("same-f1", kNoSubject, Outcome::kFail, 0.020),
       record("unchanged", kGold, Outcome::kPass, 0.020),
       record("added", kGold, Outcome::kPass, 0.020),
   });
@@ -71,30 +75,32 @@ TEST_CASE("transitions, figures and error classes of two hand-built runs") {
   CHECK(count(Transition::kBroken) == 1);
   CHECK(count(Transition::kWorse) == 1);
   CHECK(count(Transition::kBetter) == 0);
-  CHECK(count(Transition::kChangedSameF1) == 0);  // 6/6 vs 6/7 test brackets: F1 differs
+  CHECK(count(Transition::kChangedSameF1) == 1);  // 6 of 6 test brackets on both sides
   CHECK(count(Transition::kUnchanged) == 1);
-  // "same-f1": old 6 matched of 6 test; new 6 matched of 7 test; gold 7: F1 falls, both fail.
-  CHECK(c.cases[3].transition == Transition::kWorse);
+  // "worse": old 6 matched of 6 test; new 6 matched of 7 test; gold 7: F1 falls, both fail.
+  CHECK(c.cases[2].transition == Transition::kWorse);
   // By hand: OLD matched 6+7+6+6+7 = 32, test 6+7+6+6+7 = 32, gold 35.
   CHECK(c.overall.old_side.matched == 32);
   CHECK(c.overall.old_side.test == 32);
   CHECK(c.overall.old_side.gold == 35);
-  // NEW matched 7+6+0+6+7 = 26, test 7+6+0+7+7 = 27, gold 35.
-  CHECK(c.overall.new_side.matched == 26);
-  CHECK(c.overall.new_side.test == 27);
-  CHECK(c.overall.new_side.f1() == doctest::Approx(100.0 * 2 * 26 / (27 + 35)));
+  // NEW matched 7+6+6+6+7 = 32, test 7+6+7+6+7 = 33, gold 35.
+  CHECK(c.overall.new_side.matched == 32);
+  CHECK(c.overall.new_side.test == 33);
+  CHECK(c.overall.new_side.f1() == doctest::Approx(100.0 * 2 * 32 / (33 + 35)));
   REQUIRE(c.suites.size() == 1);
   CHECK(c.suites[0].new_side.cases == 5);
   REQUIRE(c.lengths.size() == 1);
   CHECK(c.lengths[0].key == "1-10");
-  // Error classes: OLD has 3 PP attachment errors (fixed, worse, same-f1), NEW 1 (broken) and
-  // one label error (same-f1); the unparsed case is not classified.
+  // Error classes: OLD has 3 PP attachment errors (fixed, worse, same-f1); NEW has one
+  // (broken), one label error (worse) and one unary error (same-f1).
   std::map<std::string, ErrorClassRow> classes;
   for (const auto& r : c.error_classes) classes[r.name] = r;
   CHECK(classes["PP attachment"].old_side.errors == 3);
   CHECK(classes["PP attachment"].new_side.errors == 1);
   CHECK(classes["label"].new_side.errors == 1);
   CHECK(classes["label"].new_side.brackets == 2);
+  CHECK(classes["unary"].new_side.errors == 1);
+  CHECK(classes["unary"].old_side.errors == 0);
   // The broken case lists gold's NP 3-7 as missing in NEW.
   const CaseChange& broken = c.cases[1];
   REQUIRE(broken.new_side.wrong.size() == 1);
