@@ -92,7 +92,7 @@ pre.bracketed{font:12px var(--mono);white-space:pre-wrap;word-break:break-all;ba
 footer{color:var(--muted);font-size:12px;margin-top:40px}
 @media print{
  body{background:#fff;font-size:11pt}header.top{background:#fff;color:#000;border-bottom:2px solid #000}
- header.top dt{color:#444}.filters,#expand-controls,.sort-mark{display:none}
+ header.top dt{color:#444}.filters,#expand-controls,.sort-mark,.sort-hint{display:none}
  .filters{position:static}section{break-inside:avoid-page}details.case{break-inside:avoid}
  .trees{overflow:visible}svg.tree{max-width:100%;height:auto}
  details.case:not([open]) .sentence{white-space:normal}

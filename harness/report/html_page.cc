@@ -118,7 +118,7 @@ std::string tables(const ReportView& v) {
   const bool before = v.summary.f1.before.has_value() || v.comparison;
   std::string out =
       "<section id=\"tables\"><h2 class=\"sec\">Breakdowns</h2>"
-      "<p class=\"note\">Click a column heading to sort.</p><div class=\"grid\">";
+      "<p class=\"note sort-hint\">Click a column heading to sort.</p><div class=\"grid\">";
   auto block = [&](const std::string& title, const std::string& body) {
     out += "<div class=\"block\"><h3>" + escape(title) + "</h3>" + body + "</div>";
   };
