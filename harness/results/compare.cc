@@ -92,7 +92,7 @@ Scored Builder::score_side(const Tree& gold, const Tree& test) {
   Scored s;
   s.score = scorer_.score(gold, test, &s.brackets);
   if (s.score.status == SentenceStatus::kScored) {
-    s.errors = classifier_.classify(gold, test);
+    s.errors = classifier_.classify(gold, test, &s.score);
   } else {  // counted as no parse
     s.score.test_brackets = s.score.matched = 0;
     s.brackets.test.clear();
@@ -141,8 +141,11 @@ void Builder::add(const CaseRecord& o, const CaseRecord& n, Comparison& out) {
   }
   if (o.gold != n.gold) out.warnings.push_back(where + ": the gold tree changed; NEW's is used");
   const Tree ot = read(o.predicted, where + " (old)", out);
-  const Tree nt = read(n.predicted, where + " (new)", out);
-  const Scored os = score_side(gold, ot), ns = score_side(gold, nt);
+  const Tree nt =
+      o.predicted == n.predicted ? Tree(labels_) : read(n.predicted, where + " (new)", out);
+  // Most cases keep their tree from one grammar version to the next: score those once.
+  const Scored os = score_side(gold, ot);
+  const Scored ns = o.predicted == n.predicted ? os : score_side(gold, nt);
   if (os.score.status == SentenceStatus::kError) {
     out.warnings.push_back(where + ": " + os.score.reason + "; left out of the figures");
     return;
@@ -171,6 +174,10 @@ void Builder::add(const CaseRecord& o, const CaseRecord& n, Comparison& out) {
     c.transition = Transition::kChangedSameF1;
   }
   ++out.transition_counts[static_cast<int>(c.transition)];
+  if (c.transition != Transition::kUnchanged) {  // the bracket lists are shown for these only
+    c.old_side.wrong = diffs(gold, os.brackets);
+    c.new_side.wrong = diffs(gold, ns.brackets);
+  }
   ++out.paired;
   out.overall.old_side.add(os.score.gold_brackets, os.score.test_brackets, os.score.matched);
   out.overall.new_side.add(ns.score.gold_brackets, ns.score.test_brackets, ns.score.matched);
