@@ -72,7 +72,8 @@ class Builder {
   Scorer scorer_;
   ErrorClassifier classifier_;
   const CompareOptions& options_;
-  std::map<std::string, Row> suites_, constructions_, labels_rows_;
+  std::map<std::string, Row> suites_, constructions_;
+  std::map<LabelId, Row> labels_rows_;  // keyed by id: no string per bracket
   std::map<std::size_t, Row> lengths_;
   ErrorTally old_errors_, new_errors_;
   std::vector<std::string> suite_order_;
@@ -189,12 +190,12 @@ void Builder::add(const CaseRecord& o, const CaseRecord& n, Comparison& out) {
   len.new_side.add(ns.score.gold_brackets, ns.score.test_brackets, ns.score.matched);
   auto label_counts = [&](const BracketSets& b, bool is_new) {
     for (const Bracket& x : b.gold) {
-      Row& r = labels_rows_[std::string(labels_.name(x.label))];
+      Row& r = labels_rows_[x.label];
       ++(is_new ? r.new_side : r.old_side).gold;
     }
     for (const Bracket& x : b.test) {
-      Prf& p = is_new ? labels_rows_[std::string(labels_.name(x.label))].new_side
-                      : labels_rows_[std::string(labels_.name(x.label))].old_side;
+      Row& r = labels_rows_[x.label];
+      Prf& p = is_new ? r.new_side : r.old_side;
       ++p.test;
       if (x.matched) ++p.matched;
     }
@@ -227,10 +228,12 @@ void Builder::finish(Comparison& out) {
   out.overall.key = "all";
   for (const auto& name : suite_order_) out.suites.push_back(suites_[name]);
   for (auto& [k, r] : constructions_) out.constructions.push_back(r);
-  for (auto& [k, r] : labels_rows_) {
-    r.key = k;
-    out.labels.push_back(r);
+  std::map<std::string, Row> by_name;
+  for (auto& [id, r] : labels_rows_) {
+    r.key = std::string(labels_.name(id));
+    by_name[r.key] = r;
   }
+  for (auto& [name, r] : by_name) out.labels.push_back(r);
   for (auto& [k, r] : lengths_) {
     r.key = std::string(kLengthBuckets[k]);
     out.lengths.push_back(r);
