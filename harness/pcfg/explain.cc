@@ -101,7 +101,8 @@ Explanation explain_tree(const std::shared_ptr<const CompiledGrammar>& grammar, 
   for (const auto& [r, u] : g) rules.insert(r);
   for (const auto& [r, u] : b) rules.insert(r);
   for (const std::string& r : rules) {
-    RuleDifference d{r};
+    RuleDifference d;
+    d.rule = r;
     auto gi = g.find(r), bi = b.find(r);
     d.gold_uses = gi == g.end() ? 0 : gi->second->at.size();
     d.best_uses = bi == b.end() ? 0 : bi->second->at.size();
