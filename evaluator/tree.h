@@ -30,7 +30,8 @@ struct Node {
 
 class Tree {
  public:
-  explicit Tree(const LabelTable& labels = LabelTable::shared()) : labels_(&labels) {}
+  Tree() : labels_(&LabelTable::shared()) {}
+  explicit Tree(const LabelTable& labels) : labels_(&labels) {}
 
   /// Empties the tree and keeps its capacity (for reuse in a reading loop).
   void clear();

@@ -12,7 +12,7 @@ int run_merge(int argc, char** argv) {
   const Usage usage{
       "merge", "RESULTS... -o RESULTS",
       "Combine the results files of the shards of one run (`run --shard K/N`) into one.",
-      "treegate merge out/shard-1.jsonl out/shard-2.jsonl -o out/results.jsonl",
+      "treegate merge shard-1.jsonl shard-2.jsonl -o results.jsonl",
       "0 merged, 2 bad usage, unreadable input or shards that do not fit together"};
   std::vector<std::string> inputs;
   std::string output;

@@ -9,6 +9,7 @@
 
 #include "evaluator/errors.h"
 #include "harness/cli/command.h"
+#include "harness/report/html_from_results.h"
 #include "harness/report/outputs.h"
 #include "harness/report/run_reports.h"
 #include "harness/results/atomic_file.h"
@@ -43,7 +44,7 @@ void draw_progress(std::size_t done, std::size_t total) {
 }
 
 struct Options {
-  std::string config, grammar, baseline, results, junit, summary_json, shard;
+  std::string config, grammar, baseline, results, junit, summary_json, html, shard;
   std::vector<std::string> suites;
   std::size_t jobs = 0;
   bool no_timings = false;
@@ -62,8 +63,7 @@ int run_run(int argc, char** argv) {
       "run", "[--config F] [--grammar G] [--suite PATH]... [--baseline RESULTS] [options]",
       "Parse every case of the suites, score and check it, compare with a baseline, write the "
       "results file and reports, and decide the gate.",
-      "treegate run --config suites/demo/treegate.yaml --results out/results.jsonl --junit "
-      "out/junit.xml",
+      "treegate run --config suites/demo/treegate.yaml --results results.jsonl --junit junit.xml",
       "0 gate passed, 1 gate failed (the reasons are printed), 2 bad usage, bad input or "
       "interrupted"};
   Options o;
@@ -78,6 +78,7 @@ int run_run(int argc, char** argv) {
       "write the results file here (default: the config's `results`)")("junit", po::value(&o.junit),
                                                                        "write JUnit XML here")(
       "summary-json", po::value(&o.summary_json), "write the summary JSON here")(
+      "html", po::value(&o.html), "write the HTML report here (one self-contained file)")(
       "jobs", po::value(&o.jobs),
       "parallel workers (default: the config's `jobs`, else the cores)")(
       "shard", po::value(&o.shard),
@@ -115,6 +116,10 @@ int run_run(int argc, char** argv) {
     std::cout << report::console_summary(run, summary, console) << std::flush;
     if (!o.results.empty()) results::write_file_atomically(o.results, text);
     report::write_outputs(run, summary, {o.junit, o.summary_json});
+    if (!o.html.empty()) {
+      report::html::write_run_report(o.html, run, o.baseline.empty() ? nullptr : &baseline,
+                                     summary);
+    }
     return summary.gate_passed ? kExitOk : kExitGateFailed;
   } catch (const InputError& e) {
     return fail("run", e.what());

@@ -1,7 +1,8 @@
-// The CKY chart of a Parser (private to the parser's .cc files). One dense entry per (cell,
-// symbol), written only where the symbol is present (presence bits and per-cell lists say
-// where), so memory is n(n+1)/2 cells x symbols and a sentence touches only what it uses.
-// Owned by one Parser; not thread-safe.
+// The CKY chart of a Parser (private to the parser's .cc files). Each cell keeps its present
+// symbols in a compact list with their values (post unary closure). Symbols that are right
+// children of binary rules (few: the grammar's right ids) are found through a small per-cell
+// index; others by scanning the cell's list. Memory: ~44 bytes per present symbol plus
+// ~4.1 bytes per (cell, right id). Owned by one Parser; not thread-safe.
 #pragma once
 
 #include <cstdint>
@@ -13,19 +14,21 @@
 
 namespace treegate::pcfg {
 
-inline constexpr std::uint32_t kLexical = 0xffffffffu;
+inline constexpr std::uint32_t kLexical = 0xffffffffu;  // Back::rule of a word's entry
+inline constexpr std::uint32_t kNotPre = 0xfffffffeu;   // present only through a unary chain
+inline constexpr std::uint32_t kAbsent = 0xffffffffu;   // slot of an absent symbol
 
-/// A symbol's values in a cell after the unary closure (post) .
+/// A symbol's values in a cell after the unary closure.
 struct Entry {
   double vit;           // best log probability
   double ins;           // inside probability, times exp(-cell scale)
   double cnt;           // number of trees (approximate; inf when infinite)
   std::uint64_t cnt64;  // number of trees modulo 2^64
 };
-/// Back pointers: the pre-unary derivation of a symbol (binary target, split) and the bottom
-/// of the best unary chain above which the post-unary symbol sits.
+/// Back pointers: the pre-unary derivation of the symbol (binary target and split, kLexical,
+/// or kNotPre) and the bottom of the best unary chain above which the post-unary symbol sits.
 struct Back {
-  std::uint32_t rule;   // target index or kLexical
+  std::uint32_t rule;
   std::uint32_t split;  // absolute word index of the split
   Symbol bottom;
 };
@@ -33,32 +36,48 @@ struct Back {
 struct Chart {
   std::size_t n = 0;        // words
   std::size_t symbols = 0;  // grammar symbols
-  std::size_t words_per_cell = 0;
-  std::size_t capacity = 0;  // entries allocated
-  std::unique_ptr<Entry[]> entry;
-  std::unique_ptr<Back[]> back;
-  std::vector<std::uint64_t> bits;     // post-unary presence
-  std::vector<std::uint64_t> prebits;  // pre-unary presence
-  std::vector<double> scale;           // per cell: log of the inside scale factor
+  const CompiledGrammar* grammar = nullptr;
+  // Per cell, over the grammar's right ids (symbols that are right children): presence bits and
+  // the index of the entry; rewritten whole when the cell is closed, so never reset.
+  std::vector<std::uint64_t> right_bits;
+  std::vector<std::uint32_t> right_slot;
+  std::vector<double> scale;  // per cell: log of the inside scale factor
   std::vector<std::uint32_t> list_begin, list_end;
-  std::vector<Symbol> lists;               // present symbols of every cell (post-unary)
+  std::vector<Symbol> lists;  // present symbols of every cell
+  std::vector<Entry> entries;
+  std::vector<Back> backs;
   std::vector<std::vector<LexEntry>> lex;  // pre-unary entries of each word
   // Scratch for the pre-unary values of the cell being filled.
-  std::vector<Entry> pre;
-  std::vector<std::uint32_t> pre_rule, pre_split, stamp;
+  struct Pre {
+    Entry value;
+    std::uint32_t rule, split;
+  };
+  std::vector<Pre> pre;
+  std::vector<std::uint32_t> stamp;
+  std::vector<std::uint32_t> post_at, post_stamp;  // symbol -> its entry in the cell being closed
   std::uint32_t stamp_now = 0;
-  std::vector<Symbol> touched;
+  std::vector<Symbol> touched;  // sized to the symbols; the first `touched_count` are used
+  std::size_t touched_count = 0;
 
   std::size_t cell(std::size_t i, std::size_t j) const {
     return i * n - i * (i - 1) / 2 + (j - i - 1);
   }
-  std::size_t at(std::size_t c, Symbol s) const { return c * symbols + s; }
-  bool has(std::size_t c, Symbol s) const {
-    return (bits[c * words_per_cell + (s >> 6)] >> (s & 63)) & 1u;
+  /// Index of (cell c, symbol s) in lists/entries/backs, or kAbsent.
+  std::uint32_t index(std::size_t c, Symbol s) const {
+    const std::uint32_t id = grammar->right_id(s);
+    if (id != kNoSymbol) {
+      const std::size_t words = grammar->right_words();
+      if (!((right_bits[c * words + id / 64] >> (id % 64)) & 1u)) return kAbsent;
+      return right_slot[c * grammar->num_right() + id];
+    }
+    for (std::uint32_t li = list_begin[c]; li < list_end[c]; ++li) {
+      if (lists[li] == s) return li;
+    }
+    return kAbsent;
   }
-  bool has_pre(std::size_t c, Symbol s) const {
-    return (prebits[c * words_per_cell + (s >> 6)] >> (s & 63)) & 1u;
-  }
+  bool has(std::size_t c, Symbol s) const { return index(c, s) != kAbsent; }
+  const Entry& entry(std::size_t c, Symbol s) const { return entries[index(c, s)]; }
+  const Back& back(std::size_t c, Symbol s) const { return backs[index(c, s)]; }
 };
 
 /// Best log probability of symbol s in cell (i, j) before the unary closure.

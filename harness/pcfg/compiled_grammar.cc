@@ -87,18 +87,19 @@ void CompiledGrammar::add_rule(const Rule& rule) {
     }
     syms.push_back(s);
   }
-  // Right-factored binarization; the intermediate for a suffix is shared by every rule that
-  // ends with that suffix, so it derives exactly the splits of its span into that suffix.
-  Symbol right = syms.back();
-  for (std::size_t k = syms.size() - 2; k >= 1; --k) {
-    std::string name = "@";
-    for (std::size_t i = k; i < syms.size(); ++i) name += (i > k ? "\x1f" : "") + names_[syms[i]];
+  // Left-factored binarization; the intermediate for a prefix is shared by every rule that
+  // starts with that prefix, so it derives exactly the splits of its span into that prefix.
+  // (Left factoring keeps the right children real symbols: fewer rule groups per left child.)
+  Symbol left = syms[0];
+  std::string name = "@" + names_[syms[0]];
+  for (std::size_t k = 1; k + 1 < syms.size(); ++k) {
+    name += "\x1f" + names_[syms[k]];
     const std::size_t before = names_.size();
     const Symbol mid = intern(name, 1);
-    if (names_.size() != before) add_binary(mid, syms[k], right, 1.0);
-    right = mid;
+    if (names_.size() != before) add_binary(mid, left, syms[k], 1.0);
+    left = mid;
   }
-  add_binary(lhs, syms[0], right, p);
+  add_binary(lhs, left, syms.back(), p);
 }
 
 void CompiledGrammar::add_binary(Symbol lhs, Symbol left, Symbol right, double p) {
@@ -125,6 +126,24 @@ void CompiledGrammar::finish_binary() {
   }
   staged_.clear();
   staged_.shrink_to_fit();
+  right_id_.assign(names_.size(), kNoSymbol);
+  for (const auto& groups : groups_) {
+    for (const RightGroup& g : groups) {
+      if (right_id_[g.right] == kNoSymbol)
+        right_id_[g.right] = static_cast<std::uint32_t>(num_right_++);
+    }
+  }
+  right_mask_.assign(names_.size() * right_words(), 0);
+  for (Symbol left = 0; left < names_.size(); ++left) {
+    auto& groups = groups_[left];
+    std::sort(groups.begin(), groups.end(), [&](const RightGroup& a, const RightGroup& b) {
+      return right_id_[a.right] < right_id_[b.right];
+    });
+    for (const RightGroup& g : groups) {
+      const std::uint32_t id = right_id_[g.right];
+      right_mask_[left * right_words() + id / 64] |= std::uint64_t{1} << (id % 64);
+    }
+  }
 }
 
 const std::vector<LexEntry>* CompiledGrammar::lexicon(const std::string& word) const {

@@ -62,8 +62,17 @@ class CompiledGrammar {
   const GrammarHeader& header() const { return header_; }
   const std::string& source() const { return source_; }
 
+  /// Binary rules with left child `left`, grouped by right child, sorted by right_id.
   const std::vector<RightGroup>& groups(Symbol left) const { return groups_[left]; }
+  /// Symbols that are a right child of some binary rule get compact ids 0..num_right()-1.
+  std::size_t num_right() const { return num_right_; }
+  std::uint32_t right_id(Symbol s) const { return right_id_[s]; }
+  /// 64-bit words of a right-id bit set.
+  std::size_t right_words() const { return (num_right_ + 63) / 64; }
+  /// Bit set over right ids: the right children that have a group under `left`.
+  const std::uint64_t* right_mask(Symbol left) const { return &right_mask_[left * right_words()]; }
   const BinaryTarget& target(std::uint32_t i) const { return targets_[i]; }
+  const BinaryTarget* targets() const { return targets_.data(); }
   std::size_t num_binary_rules() const { return targets_.size(); }
   /// (left, right) children of binary target `i`.
   std::pair<Symbol, Symbol> children(std::uint32_t i) const { return children_[i]; }
@@ -101,6 +110,9 @@ class CompiledGrammar {
   std::unordered_map<std::string, Symbol> ids_;
   Symbol start_ = kNoSymbol;
   std::vector<std::vector<RightGroup>> groups_;
+  std::size_t num_right_ = 0;
+  std::vector<std::uint32_t> right_id_;
+  std::vector<std::uint64_t> right_mask_;
   std::vector<BinaryTarget> targets_;
   std::vector<std::pair<Symbol, Symbol>> children_;
   std::vector<std::vector<ByLhs>> by_lhs_;

@@ -8,6 +8,7 @@
 #include <queue>
 #include <set>
 #include <unordered_map>
+#include <unordered_set>
 
 #include "harness/pcfg/chart.h"
 #include "harness/pcfg/parser.h"
@@ -67,22 +68,29 @@ class KBest {
   }
 
  private:
+  /// Presence of a symbol in a cell, through a per-cell index built on first use.
+  bool has(std::size_t cell, Symbol s) {
+    auto [it, fresh] = present_.try_emplace(cell);
+    if (fresh) {
+      for (std::uint32_t li = c_.list_begin[cell]; li < c_.list_end[cell]; ++li)
+        it->second.insert(c_.lists[li]);
+    }
+    return it->second.count(s) > 0;
+  }
+
   double best(const NodeKey& v) const {
-    if (v.post) return c_.entry[c_.at(c_.cell(v.i, v.j), v.s)].vit;
+    if (v.post) return c_.entry(c_.cell(v.i, v.j), v.s).vit;
     return pre_vit(c_, g_, v.i, v.j, v.s);
   }
 
   void init(const NodeKey& v, NodeState& st) {
     const std::size_t cell = c_.cell(v.i, v.j);
     if (v.post) {
-      for (std::size_t w = 0; w < c_.words_per_cell; ++w) {
-        for (std::uint64_t bits = c_.prebits[cell * c_.words_per_cell + w]; bits;
-             bits &= bits - 1) {
-          const Symbol b =
-              static_cast<Symbol>(w * 64 + static_cast<std::size_t>(__builtin_ctzll(bits)));
-          for (const UnaryLink& link : g_.unary_above(b)) {
-            if (link.top == v.s) st.edges.push_back({link.logp, {{v.i, v.j, b, false}, {}}, 1, 0});
-          }
+      for (std::uint32_t li = c_.list_begin[cell]; li < c_.list_end[cell]; ++li) {
+        if (c_.backs[li].rule == kNotPre) continue;
+        const Symbol b = c_.lists[li];
+        for (const UnaryLink& link : g_.unary_above(b)) {
+          if (link.top == v.s) st.edges.push_back({link.logp, {{v.i, v.j, b, false}, {}}, 1, 0});
         }
       }
     } else if (v.j == v.i + 1) {
@@ -93,7 +101,7 @@ class KBest {
       for (std::uint32_t k = v.i + 1; k < v.j; ++k) {
         const std::size_t left = c_.cell(v.i, k), right = c_.cell(k, v.j);
         for (const auto& r : g_.rules_of(v.s)) {
-          if (c_.has(left, r.left) && c_.has(right, r.right)) {
+          if (has(left, r.left) && has(right, r.right)) {
             st.edges.push_back(
                 {r.logp, {{v.i, k, r.left, true}, {k, v.j, r.right, true}}, 2, r.target});
           }
@@ -136,6 +144,7 @@ class KBest {
   const Chart& c_;
   const CompiledGrammar& g_;
   std::unordered_map<std::uint64_t, NodeState> nodes_;
+  std::unordered_map<std::size_t, std::unordered_set<Symbol>> present_;
 };
 
 }  // namespace

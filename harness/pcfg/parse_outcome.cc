@@ -103,7 +103,7 @@ std::string no_tree_reason(const Chart& c, const CompiledGrammar& g,
       double top = -INFINITY;
       for (std::uint32_t li = c.list_begin[cell]; li < c.list_end[cell]; ++li) {
         const Symbol s = c.lists[li];
-        const double v = c.entry[c.at(cell, s)].vit;
+        const double v = c.entries[li].vit;
         if (!g.internal(s) && v > top) top = v, best = s, best_j = j;
       }
     }
@@ -143,7 +143,7 @@ void fill_outcome(const Chart& c, const CompiledGrammar& g, const std::vector<st
     result.reason = no_tree_reason(c, g, words);
     return;
   }
-  const Entry& e = c.entry[c.at(root, g.start())];
+  const Entry& e = c.entry(root, g.start());
   result.status = ParseStatus::parsed;
   result.logprob = e.vit;
   result.inside_logprob = std::log(e.ins) + c.scale[root];

@@ -1,41 +1,43 @@
 // Chart filling for Parser: lexical cells, binary rules by left child with the right child
-// found through presence bits, unary closure per cell, inside probabilities with a per-cell
-// scale (no underflow on long sentences), counts exact modulo 2^64 plus a double estimate.
+// found through the right cell's slot index, unary closure per cell, inside probabilities with
+// a per-cell scale (no underflow on long sentences), counts exact modulo 2^64 plus a double
+// estimate that tells whether they fit.
 #include "harness/pcfg/parser.h"
 
+#include <bit>
 #include <chrono>
 #include <cmath>
 #include <limits>
 
 #include "harness/pcfg/chart.h"
 #include "harness/pcfg/parse_outcome.h"
-#include "harness/pcfg/signature.h"
 
 namespace treegate::pcfg {
 namespace {
 
 constexpr double kNegInf = -std::numeric_limits<double>::infinity();
-
-std::size_t bytes_per_entry() { return sizeof(Entry) + sizeof(Back); }
+constexpr std::size_t kPresentBytes = sizeof(Symbol) + sizeof(Entry) + sizeof(Back);
 
 }  // namespace
 
 std::size_t chart_bytes(const CompiledGrammar& grammar, std::size_t words) {
+  // The right-id index is dense; present symbols are estimated as a tenth of all (treebank
+  // grammars fill less); the fill stops when the real size passes the cap.
   const std::size_t cells = words * (words + 1) / 2;
-  const std::size_t per_cell =
-      grammar.num_symbols() * bytes_per_entry() + (grammar.num_symbols() + 63) / 64 * 16;
-  return cells * per_cell;
+  return cells * (grammar.num_right() * sizeof(std::uint32_t) + grammar.right_words() * 8 +
+                  grammar.num_symbols() * kPresentBytes / 10);
 }
 
 Parser::Parser(std::shared_ptr<const CompiledGrammar> grammar)
     : grammar_(std::move(grammar)), chart_(std::make_unique<Chart>()) {
   Chart& c = *chart_;
   c.symbols = grammar_->num_symbols();
-  c.words_per_cell = (c.symbols + 63) / 64;
   c.pre.resize(c.symbols);
-  c.pre_rule.resize(c.symbols);
-  c.pre_split.resize(c.symbols);
   c.stamp.assign(c.symbols, 0);
+  c.post_at.assign(c.symbols, 0);
+  c.post_stamp.assign(c.symbols, 0);
+  c.grammar = grammar_.get();
+  c.touched.resize(c.symbols);
 }
 
 Parser::~Parser() = default;
@@ -49,26 +51,28 @@ class Filler {
   void start_cell() {
     if (++c_.stamp_now == 0) {
       std::fill(c_.stamp.begin(), c_.stamp.end(), 0);
+      std::fill(c_.post_stamp.begin(), c_.post_stamp.end(), 0);
       c_.stamp_now = 1;
     }
-    c_.touched.clear();
+    c_.touched_count = 0;
   }
 
-  Entry& touch(Symbol s) {
+  Chart::Pre& touch(Symbol s) {
     if (c_.stamp[s] != c_.stamp_now) {
       c_.stamp[s] = c_.stamp_now;
-      c_.pre[s] = {kNegInf, 0.0, 0.0, 0};
-      c_.touched.push_back(s);
+      c_.pre[s].value = {kNegInf, 0.0, 0.0, 0};
+      c_.touched[c_.touched_count++] = s;
     }
     return c_.pre[s];
   }
 
   void lexical(std::size_t i, Symbol s, double logp, double p) {
-    Entry& e = touch(s);
+    Chart::Pre& pre = touch(s);
+    Entry& e = pre.value;
     if (logp > e.vit) {
       e.vit = logp;
-      c_.pre_rule[s] = kLexical;
-      c_.pre_split[s] = static_cast<std::uint32_t>(i);
+      pre.rule = kLexical;
+      pre.split = static_cast<std::uint32_t>(i);
     }
     e.ins += p;
     e.cnt = 1;
@@ -83,87 +87,118 @@ class Filler {
     }
     c_.scale[cell_ij] = top;
     std::uint64_t applications = 0;
-    const Entry* entries = c_.entry.get();
+    const Entry* entries = c_.entries.data();
+    const Symbol* lists = c_.lists.data();
+    const BinaryTarget* targets = g_.targets();
+    Chart::Pre* pre = c_.pre.data();
+    std::uint32_t* stamp = c_.stamp.data();
+    Symbol* touched = c_.touched.data();
+    std::size_t touched_count = c_.touched_count;
+    const std::uint32_t now = c_.stamp_now;
+    const std::size_t words = g_.right_words();
     for (std::size_t k = i + 1; k < j; ++k) {
       const std::size_t left = c_.cell(i, k), right = c_.cell(k, j);
       if (c_.list_begin[left] == c_.list_end[left] || c_.list_begin[right] == c_.list_end[right])
         continue;
       const double factor = std::exp(c_.scale[left] + c_.scale[right] - top);
-      const std::uint64_t* rbits = &c_.bits[right * c_.words_per_cell];
-      const Entry* rentries = entries + right * c_.symbols;
+      const std::uint64_t* rbits = &c_.right_bits[right * words];
+      const std::uint32_t* rslot = &c_.right_slot[right * g_.num_right()];
       const auto split = static_cast<std::uint32_t>(k);
       for (std::uint32_t li = c_.list_begin[left]; li < c_.list_end[left]; ++li) {
-        const Symbol b = c_.lists[li];
-        const auto& groups = g_.groups(b);
-        if (groups.empty()) continue;
-        const Entry& lb = entries[left * c_.symbols + b];
+        const Symbol b = lists[li];
+        const RightGroup* groups = g_.groups(b).data();
+        if (groups == nullptr) continue;
+        const std::uint64_t* mask = g_.right_mask(b);
+        const Entry& lb = entries[li];
         const double lins = lb.ins * factor;
-        for (const RightGroup& grp : groups) {
-          const Symbol r = grp.right;
-          if (!((rbits[r >> 6] >> (r & 63)) & 1u)) continue;
-          const Entry& rc = rentries[r];
-          const double vit = lb.vit + rc.vit;
-          const double ins = lins * rc.ins;
-          const double cnt = lb.cnt * rc.cnt;
-          const std::uint64_t cnt64 = lb.cnt64 * rc.cnt64;
-          applications += grp.end - grp.begin;
-          for (std::uint32_t t = grp.begin; t < grp.end; ++t) {
-            const BinaryTarget& target = g_.target(t);
-            Entry& e = touch(target.lhs);
-            const double v = vit + target.logp;
-            if (v > e.vit) {
-              e.vit = v;
-              c_.pre_rule[target.lhs] = t;
-              c_.pre_split[target.lhs] = split;
+        std::uint32_t base = 0;
+        for (std::size_t w = 0; w < words; ++w) {
+          const std::uint64_t gw = mask[w];
+          for (std::uint64_t m = gw & rbits[w]; m != 0; m &= m - 1) {
+            const int bit = std::countr_zero(m);
+            const RightGroup& grp = groups[base + static_cast<std::uint32_t>(std::popcount(
+                                                      gw & ((std::uint64_t{1} << bit) - 1)))];
+            const Entry& rc = entries[rslot[w * 64 + static_cast<std::size_t>(bit)]];
+            const double vit = lb.vit + rc.vit;
+            const double ins = lins * rc.ins;
+            const double cnt = lb.cnt * rc.cnt;
+            const std::uint64_t cnt64 = lb.cnt64 * rc.cnt64;
+            applications += grp.end - grp.begin;
+            for (std::uint32_t t = grp.begin; t < grp.end; ++t) {
+              const BinaryTarget& target = targets[t];
+              const Symbol a = target.lhs;
+              Chart::Pre& p = pre[a];
+              if (stamp[a] != now) {
+                stamp[a] = now;
+                p.value = {kNegInf, 0.0, 0.0, 0};
+                touched[touched_count++] = a;
+              }
+              const double v = vit + target.logp;
+              if (v > p.value.vit) {
+                p.value.vit = v;
+                p.rule = t;
+                p.split = split;
+              }
+              p.value.ins += ins * target.p;
+              p.value.cnt += cnt;
+              p.value.cnt64 += cnt64;
             }
-            e.ins += ins * target.p;
-            e.cnt += cnt;
-            e.cnt64 += cnt64;
           }
+          base += static_cast<std::uint32_t>(std::popcount(gw));
         }
       }
     }
+    c_.touched_count = touched_count;
     return applications;
   }
 
-  /// Applies the unary closure to the touched pre-unary symbols, writing the cell.
+  /// Applies the unary closure to the touched pre-unary symbols, appending the cell's list.
   void close(std::size_t cell) {
-    Entry* out = c_.entry.get() + cell * c_.symbols;
-    Back* back = c_.back.get() + cell * c_.symbols;
-    std::uint64_t* bits = &c_.bits[cell * c_.words_per_cell];
-    std::uint64_t* prebits = &c_.prebits[cell * c_.words_per_cell];
-    c_.list_begin[cell] = static_cast<std::uint32_t>(c_.lists.size());
-    for (Symbol b : c_.touched) {
-      const Entry& pre = c_.pre[b];
-      prebits[b >> 6] |= std::uint64_t{1} << (b & 63);
-      back[b].rule = c_.pre_rule[b];
-      back[b].split = c_.pre_split[b];
+    std::uint32_t* post_at = c_.post_at.data();
+    std::uint32_t* post_stamp = c_.post_stamp.data();
+    const std::uint32_t now = c_.stamp_now;
+    std::uint64_t* rbits = &c_.right_bits[cell * g_.right_words()];
+    std::uint32_t* rslot = &c_.right_slot[cell * g_.num_right()];
+    std::fill_n(rbits, g_.right_words(), 0);
+    const auto begin = static_cast<std::uint32_t>(c_.lists.size());
+    c_.list_begin[cell] = begin;
+    for (std::size_t ti = 0; ti < c_.touched_count; ++ti) {
+      const Symbol b = c_.touched[ti];
+      const Entry pre = c_.pre[b].value;
       for (const UnaryLink& link : g_.unary_above(b)) {
         const Symbol a = link.top;
-        Entry& e = out[a];
-        if (!((bits[a >> 6] >> (a & 63)) & 1u)) {
-          bits[a >> 6] |= std::uint64_t{1} << (a & 63);
-          e = {kNegInf, 0.0, 0.0, 0};
+        std::uint32_t at = post_at[a];
+        if (post_stamp[a] != now) {
+          post_stamp[a] = now;
+          at = post_at[a] = static_cast<std::uint32_t>(c_.lists.size());
+          if (const std::uint32_t id = g_.right_id(a); id != kNoSymbol) {
+            rbits[id / 64] |= std::uint64_t{1} << (id % 64);
+            rslot[id] = at;
+          }
           c_.lists.push_back(a);
+          c_.entries.push_back({kNegInf, 0.0, 0.0, 0});
+          c_.backs.push_back({kNotPre, 0, a});
         }
+        Entry& e = c_.entries[at];
         const double v = pre.vit + link.logp;
         if (v > e.vit) {
           e.vit = v;
-          back[a].bottom = b;
+          c_.backs[at].bottom = b;
         }
         e.ins += pre.ins * link.p;
         e.cnt += pre.cnt * link.count;
         e.cnt64 += pre.cnt64 * link.count64;
       }
+      Back& back = c_.backs[post_at[b]];  // the empty chain made b present
+      back.rule = c_.pre[b].rule;
+      back.split = c_.pre[b].split;
     }
-    c_.list_end[cell] = static_cast<std::uint32_t>(c_.lists.size());
+    const auto end = static_cast<std::uint32_t>(c_.lists.size());
+    c_.list_end[cell] = end;
     double top = 0;
-    for (std::uint32_t li = c_.list_begin[cell]; li < c_.list_end[cell]; ++li) {
-      top = std::max(top, out[c_.lists[li]].ins);
-    }
+    for (std::uint32_t li = begin; li < end; ++li) top = std::max(top, c_.entries[li].ins);
     if (top > 0 && std::isfinite(top)) {
-      for (std::uint32_t li = c_.list_begin[cell]; li < c_.list_end[cell]; ++li)
-        out[c_.lists[li]].ins /= top;
+      for (std::uint32_t li = begin; li < end; ++li) c_.entries[li].ins /= top;
       c_.scale[cell] += std::log(top);
     }
   }
@@ -173,23 +208,25 @@ class Filler {
   const CompiledGrammar& g_;
 };
 
-void prepare(Chart& c, std::size_t n) {
+void prepare(Chart& c, const CompiledGrammar& g, std::size_t n) {
   c.n = n;
   const std::size_t cells = n * (n + 1) / 2;
-  if (cells * c.symbols > c.capacity) {
-    c.entry.reset();
-    c.back.reset();
-    c.capacity = cells * c.symbols;
-    c.entry = std::make_unique_for_overwrite<Entry[]>(c.capacity);
-    c.back = std::make_unique_for_overwrite<Back[]>(c.capacity);
-  }
-  c.bits.assign(cells * c.words_per_cell, 0);
-  c.prebits.assign(cells * c.words_per_cell, 0);
+  c.right_bits.resize(std::max(c.right_bits.size(), cells * g.right_words()));
+  c.right_slot.resize(std::max(c.right_slot.size(), cells * g.num_right()));
   c.scale.assign(cells, 0.0);
   c.list_begin.assign(cells, 0);
   c.list_end.assign(cells, 0);
   c.lists.clear();
+  c.entries.clear();
+  c.backs.clear();
   c.lex.resize(n);
+}
+
+std::string over_cap(std::size_t n, std::size_t bytes, std::size_t cap, std::size_t span) {
+  auto mib = [](std::size_t b) { return std::to_string((b + (1 << 19)) >> 20) + " MiB"; };
+  return "sentence of " + std::to_string(n) + " words needs over " + mib(bytes) +
+         " of chart (stopped at spans of " + std::to_string(span) + " words), over the cap of " +
+         mib(cap) + "; raise --max-chart-mb";
 }
 
 }  // namespace
@@ -211,20 +248,27 @@ ParseResult Parser::parse(const std::vector<std::string>& words,
     return finish();
   }
   Chart& c = *chart_;
-  prepare(c, n);
+  prepare(c, g, n);
   Filler fill(c, g);
   for (std::size_t i = 0; i < n; ++i) {
-    fill.start_cell();
     c.lex[i] = lexical_entries(g, words, tags, options, i);
+    fill.start_cell();
     for (const LexEntry& e : c.lex[i]) fill.lexical(i, e.symbol, e.logp, e.p);
     fill.close(c.cell(i, i + 1));
   }
+  const std::size_t dense = c.right_slot.size() * sizeof(std::uint32_t) + c.right_bits.size() * 8;
   for (std::size_t span = 2; span <= n; ++span) {
     for (std::size_t i = 0; i + span <= n; ++i) {
       const std::size_t cell = c.cell(i, i + span);
       fill.start_cell();
       result.binary_applications += fill.binary(i, i + span, cell);
       fill.close(cell);
+    }
+    const std::size_t bytes = dense + c.lists.capacity() * kPresentBytes;
+    if (bytes > options.max_chart_bytes) {
+      result.status = ParseStatus::error;
+      result.reason = over_cap(n, bytes, options.max_chart_bytes, span);
+      return finish();
     }
   }
   fill_outcome(c, g, words, options, result);

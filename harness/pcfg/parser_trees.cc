@@ -8,7 +8,7 @@ namespace treegate::pcfg {
 
 double pre_vit(const Chart& chart, const CompiledGrammar& g, std::size_t i, std::size_t j,
                Symbol s) {
-  const Back& back = chart.back[chart.at(chart.cell(i, j), s)];
+  const Back& back = chart.back(chart.cell(i, j), s);
   if (back.rule == kLexical) {
     double best = -INFINITY;
     for (const LexEntry& e : chart.lex[i]) {
@@ -18,8 +18,8 @@ double pre_vit(const Chart& chart, const CompiledGrammar& g, std::size_t i, std:
   }
   const auto [left, right] = g.children(back.rule);
   const std::size_t k = back.split;
-  return g.target(back.rule).logp + chart.entry[chart.at(chart.cell(i, k), left)].vit +
-         chart.entry[chart.at(chart.cell(k, j), right)].vit;
+  return g.target(back.rule).logp + chart.entry(chart.cell(i, k), left).vit +
+         chart.entry(chart.cell(k, j), right).vit;
 }
 
 namespace {
@@ -54,7 +54,7 @@ Tree viterbi_tree(const Chart& chart, const CompiledGrammar& g,
     Frame f = stack.back();
     stack.pop_back();
     const std::size_t cell = chart.cell(f.i, f.j);
-    const Back& back = chart.back[chart.at(cell, f.symbol)];
+    const Back& back = chart.back(cell, f.symbol);
     if (f.post) {
       const Symbol bottom = back.bottom;
       NodeId parent = f.parent;

@@ -13,6 +13,20 @@ namespace {
 using results::CaseRecord;
 using results::Outcome;
 
+// Control characters from the data would move the cursor or recolour the terminal: show them
+// as \xHH instead.
+std::string shown(const std::string& text) {
+  std::string out;
+  for (unsigned char c : text) {
+    if (c < 0x20 || c == 0x7f) {
+      out += fmt::format("\\x{:02x}", c);
+    } else {
+      out += static_cast<char>(c);
+    }
+  }
+  return out;
+}
+
 struct Paint {
   bool on;
   std::string operator()(const std::string& text, const char* code) const {
@@ -33,8 +47,8 @@ void group_table(std::string& out, const char* title,
   out += fmt::format("\n{:<{}}  {:>6}  {:>6}  {:>7}  {:>7}\n", title, width, "cases", "passed",
                      "F1", "change");
   for (const auto& g : groups) {
-    std::string line = fmt::format("{:<{}}  {:>6}  {:>6}  {:>7.2f}  {:>7}", g.name, width, g.cases,
-                                   g.passed, g.f1, delta(g.f1_delta));
+    std::string line = fmt::format("{:<{}}  {:>6}  {:>6}  {:>7.2f}  {:>7}", shown(g.name), width,
+                                   g.cases, g.passed, g.f1, delta(g.f1_delta));
     while (!line.empty() && line.back() == ' ') line.pop_back();
     out += line + "\n";
   }
@@ -43,16 +57,17 @@ void group_table(std::string& out, const char* title,
 void case_block(std::string& out, const CaseRecord& c, const char* tag,
                 const results::RunResults& run, const std::optional<double>& base_f1,
                 const Paint& paint) {
-  out += fmt::format("  {} {}/{}: {}\n", paint(tag, "1;31"), c.suite, c.id,
-                     c.reason.empty() ? "passes" : c.reason);
+  out += fmt::format("  {} {}/{}: {}\n", paint(tag, "1;31"), shown(c.suite), shown(c.id),
+                     shown(c.reason.empty() ? "passes" : c.reason));
   out += fmt::format("    F1 {:.2f} (threshold {:.2f}{})\n", c.f1, c.min_f1,
                      base_f1 ? fmt::format(", baseline {:.2f}", *base_f1) : "");
-  out += "    gold:      " + (c.gold.empty() ? std::string("(none)") : c.gold) + "\n";
-  out += "    predicted: " + (c.predicted.empty() ? std::string("(none)") : c.predicted) + "\n";
+  out += "    gold:      " + (c.gold.empty() ? std::string("(none)") : shown(c.gold)) + "\n";
+  out +=
+      "    predicted: " + (c.predicted.empty() ? std::string("(none)") : shown(c.predicted)) + "\n";
   if (!c.gold.empty() && !c.predicted.empty()) {
     const BracketDiff d = bracket_diff(c, run.header.scheme);
-    out += "    missing:   " + join_brackets(d.missing) + "\n";
-    out += "    extra:     " + join_brackets(d.extra) + "\n";
+    out += "    missing:   " + shown(join_brackets(d.missing)) + "\n";
+    out += "    extra:     " + shown(join_brackets(d.extra)) + "\n";
   }
 }
 

@@ -6,6 +6,7 @@
 #include <sstream>
 
 #include "evaluator/errors.h"
+#include "harness/results/case_sax.h"
 #include "harness/results/results.h"
 #include "harness/results/results_json.h"
 
@@ -45,22 +46,35 @@ Header read_header(const json& j) {
   return h;
 }
 
-CaseRecord read_case(const json& j) {
+void take(json& j, const char* key, std::string& out) {
+  out = std::move(j.at(key).get_ref<std::string&>());
+}
+
+void take(json& j, const char* key, std::vector<std::string>& out) {
+  json& a = j.at(key);
+  if (!a.is_array())
+    throw std::runtime_error(std::string("expected a list of strings at '") + key + "'");
+  out.clear();
+  out.reserve(a.size());
+  for (auto& v : a) out.push_back(std::move(v.get_ref<std::string&>()));
+}
+
+CaseRecord read_case(json& j) {
   CaseRecord c;
-  j.at("suite").get_to(c.suite);
-  j.at("id").get_to(c.id);
+  take(j, "suite", c.suite);
+  take(j, "id", c.id);
   j.at("n").get_to(c.n);
-  j.at("words").get_to(c.words);
-  j.at("constructions").get_to(c.constructions);
-  j.at("gold").get_to(c.gold);
-  j.at("predicted").get_to(c.predicted);
-  j.at("parse").get_to(c.parse);
-  j.at("score").get_to(c.score);
+  take(j, "words", c.words);
+  take(j, "constructions", c.constructions);
+  take(j, "gold", c.gold);
+  take(j, "predicted", c.predicted);
+  take(j, "parse", c.parse);
+  take(j, "score", c.score);
   const std::string outcome = j.at("outcome").get<std::string>();
   const auto o = outcome_from_name(outcome);
   if (!o) throw std::runtime_error("unknown outcome '" + outcome + "'");
   c.outcome = *o;
-  j.at("reason").get_to(c.reason);
+  take(j, "reason", c.reason);
   c.logprob = opt<double>(j, "logprob");
   c.inside_logprob = opt<double>(j, "inside_logprob");
   c.parses = opt<double>(j, "parses");
@@ -98,6 +112,14 @@ RunResults parse_results(const std::string& text, const std::string& source) {
     ++line_no;
     start = end + 1;
     if (line.find_first_not_of(" \t") == std::string_view::npos) continue;
+    if (have_header) {
+      CaseRecord c;
+      std::size_t col = 1;
+      const std::string problem = detail::read_case_line(line, c, col);
+      if (!problem.empty()) throw InputError(source, line_no, col, problem);
+      out.cases.push_back(std::move(c));
+      continue;
+    }
     json j;
     try {
       j = json::parse(line);
@@ -132,11 +154,13 @@ RunResults parse_results(const std::string& text, const std::string& source) {
 }
 
 RunResults load_results(const std::string& path) {
-  std::ifstream in(path, std::ios::binary);
+  std::ifstream in(path, std::ios::binary | std::ios::ate);
   if (!in) throw InputError(path + ": cannot open file for reading");
-  std::ostringstream text;
-  text << in.rdbuf();
-  return parse_results(text.str(), path);
+  std::string text(static_cast<std::size_t>(in.tellg()), '\0');
+  in.seekg(0);
+  in.read(text.data(), static_cast<std::streamsize>(text.size()));
+  if (!in) throw InputError(path + ": cannot read the file");
+  return parse_results(text, path);
 }
 
 void sort_canonical(RunResults& results) {

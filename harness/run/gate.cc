@@ -35,13 +35,13 @@ Groups group(const RunResults& run) {
   std::map<std::string, std::size_t> suite_index;
   for (const auto& s : run.header.suites) {
     suite_index.emplace(s.name, g.suites.size());
-    g.suites.push_back({s.name});
+    g.suites.emplace_back().name = s.name;
   }
   for (const auto& c : run.cases) {
     auto it = suite_index.find(c.suite);
     if (it == suite_index.end()) {
       it = suite_index.emplace(c.suite, g.suites.size()).first;
-      g.suites.push_back({c.suite});
+      g.suites.emplace_back().name = c.suite;
     }
     std::vector<GroupFigures*> targets{&g.suites[it->second]};
     for (const auto& t : c.constructions) {
@@ -110,7 +110,9 @@ void count_outcomes(const RunResults& run, RunSummary& s) {
 
 void construction_gates(const suite::GateSettings& gate, RunSummary& s) {
   for (const auto& f : s.constructions) {
-    ConstructionGate g{f.name, f.f1};
+    ConstructionGate g;
+    g.name = f.name;
+    g.f1 = f.f1;
     if (auto it = gate.construction_min_f1.find(f.name); it != gate.construction_min_f1.end()) {
       g.min_f1 = it->second;
     }

@@ -241,7 +241,10 @@ Suite load_suite_string(const std::string& text, const std::string& path,
   std::set<std::string> ids;
   if (root["cases"]) read_cases(path, root["cases"], suite, ids);
   if (root["treebank"]) read_treebanks(path, root["treebank"], options, suite, ids);
-  suite.hash = fnv1a64_hex(text + suite.hash);  // the suite text and its treebank files
+  suite.hash = fnv1a64_hex(text + suite.hash);
+  if (suite.cases.empty()) {
+    yaml::fail_at(path, root["cases"] ? root["cases"] : root, "the suite has no cases");
+  }  // the suite text and its treebank files
   return suite;
 }
 

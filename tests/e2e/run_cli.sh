@@ -53,6 +53,8 @@ for f in r j s out; do
   cmp -s "$a" "$b" || fail "--jobs 1 and --jobs 2 differ: $a $b"
 done
 [ ! -s err1.txt ] || fail "stderr not empty without a terminal: $(cat err1.txt)"
+# Control characters from the data are shown as \xHH on the console, never sent raw.
+/usr/bin/python3 -c "import sys; t=open(sys.argv[1],'rb').read(); assert b'\x01' not in t and b'\x1b' not in t; assert b'\\\\x1b[31m' in t" out1.txt || fail "raw control characters on the console"
 
 # JUnit against the published schema (Jenkins xUnit plugin's junit-10.xsd).
 if [ -f "$xsd" ]; then

@@ -30,7 +30,7 @@ for name in "${names[@]}"; do
   art="$build/fuzz-artifacts/$name"
   log="$build/fuzz-logs/$name.log"
   mkdir -p "$work" "$art" "$(dirname "$log")"
-  args=(-max_total_time="$time_s" -timeout=10 -rss_limit_mb=2048 -max_len=16384
+  args=(-max_total_time="$time_s" -timeout=30 -rss_limit_mb=2048 -max_len=16384
         -print_final_stats=1 -artifact_prefix="$art/")
   [ -f "$here/$name.dict" ] && args+=(-dict="$here/$name.dict")
   seeds=()

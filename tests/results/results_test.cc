@@ -66,11 +66,13 @@ TEST_CASE("results: text round-trips through parse_results") {
 TEST_CASE("results: bad lines name file:line:col") {
   const std::string header = tr::results_text(tr::RunResults{});
   try {
-    tr::parse_results(header + "{\"suite\": 3,\n", "bad.jsonl");
+    tr::parse_results(header + "{\"suite\" \"x\"}\n", "bad.jsonl");
     FAIL("no error");
   } catch (const treegate::InputError& e) {
-    CHECK(std::string(e.what()) == "bad.jsonl:2:13: expected one JSON object per line");
+    CHECK(std::string(e.what()) == "bad.jsonl:2:10: expected one JSON object per line");
   }
+  CHECK_THROWS_WITH(tr::parse_results(header + "{\"suite\": 3}\n", "bad.jsonl"),
+                    "bad.jsonl:2:1: unexpected number at key 'suite'");
   try {
     tr::parse_results(header + "{\"suite\": \"x\"}\n", "bad.jsonl");
     FAIL("no error");
