@@ -23,6 +23,13 @@ Sentence read_sentence(std::string_view text, std::size_t line, bool tagged) {
     const std::size_t start = i;
     while (i < text.size() && text[i] != ' ' && text[i] != '\t') ++i;
     std::string_view token = text.substr(start, i - start);
+    if (token.find_first_of("()") != std::string_view::npos) {
+      if (s.error.empty()) {
+        s.error = "column " + std::to_string(start + 1) + ": a word may not contain '(' or ')' " +
+                  "(bracketed trees could not show it; treebanks write -LRB- and -RRB-)";
+      }
+      continue;
+    }
     if (!tagged) {
       s.words.emplace_back(token);
       continue;
