@@ -12,7 +12,7 @@ endif()
 install(DIRECTORY ${CMAKE_SOURCE_DIR}/suites/demo ${CMAKE_SOURCE_DIR}/suites/examples
         DESTINATION ${CMAKE_INSTALL_DATADIR}/treegate/suites)
 install(DIRECTORY ${CMAKE_SOURCE_DIR}/ci/recipes DESTINATION ${CMAKE_INSTALL_DOCDIR}/examples
-        OPTIONAL)
+        USE_SOURCE_PERMISSIONS OPTIONAL)
 
 set(CPACK_GENERATOR DEB)
 set(CPACK_PACKAGE_NAME treegate)

@@ -4,6 +4,7 @@
 
 #include "evaluator/errors.h"
 #include "harness/cli/command.h"
+#include "harness/report/html_from_compare.h"
 #include "harness/results/compare.h"
 #include "harness/run/gate.h"
 #include "harness/run/regression_run.h"
@@ -50,7 +51,7 @@ int run_compare(int argc, char** argv) {
               "suites/demo/v2.pcfg"};
   usage.exit_codes = "0 gate passed, 1 gate failed, 2 bad usage or unreadable input";
   po::options_description opts("options");
-  std::string old_path, new_path, format = "text", test = "randomization";
+  std::string old_path, new_path, format = "text", test = "randomization", html;
   results::CompareOptions options;
   std::size_t listed = 20;
   std::string config;
@@ -58,6 +59,7 @@ int run_compare(int argc, char** argv) {
   opts.add_options()("old", po::value(&old_path)->required(), "the earlier run (results file)")(
       "new", po::value(&new_path)->required(), "the later run (results file)")(
       "format", po::value(&format), "text (default) or json")(
+      "html", po::value(&html), "also write the HTML report here (one self-contained file)")(
       "test", po::value(&test),
       "significance test: randomization (default; paired approximate randomization) or "
       "bootstrap (paired bootstrap)")(
@@ -92,6 +94,7 @@ int run_compare(int argc, char** argv) {
     c.gate = {gate.gate_passed, gate.gate_reasons};
     std::cout << (format == "json" ? results::comparison_json(c)
                                    : results::comparison_text(c, listed));
+    if (!html.empty()) report::html::write_compare_report(html, c, old_run, new_run);
     return c.gate.passed ? kExitOk : kExitGateFailed;
   } catch (const InputError& e) {
     return fail("compare", e.what());

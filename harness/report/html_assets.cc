@@ -35,16 +35,17 @@ h2.sec{font-size:18px;margin:0 0 10px;padding-bottom:4px;border-bottom:2px solid
 .charts{display:flex;flex-wrap:wrap;gap:18px}
 figure.chart{margin:0;background:var(--card);border:1px solid var(--line);border-radius:8px;padding:10px 12px;overflow-x:auto}
 figure.chart figcaption{font-weight:600;margin-bottom:4px}
-svg.chart text{font:11px system-ui,"DejaVu Sans",sans-serif;fill:var(--ink)}
+svg.chart text{font:10.5px system-ui,"DejaVu Sans",sans-serif;fill:var(--ink)}
 svg.chart .axis{text-anchor:end;fill:var(--muted)}svg.chart .category,svg.chart .value{text-anchor:middle}
 svg.chart .grid{stroke:#ebe7de}svg.chart .axis-line{stroke:var(--muted)}
 svg.chart .bar.new,.legend .new{fill:var(--accent)}
 .hatch-bg{fill:#fff}.hatch-line{stroke:var(--old);stroke-width:3}
 rect.hatch{stroke:var(--old);stroke-width:1}
 .legend{margin:4px 0 0;font-size:13px;display:flex;gap:16px}.legend svg{vertical-align:-2px}
+.grid{display:grid;grid-template-columns:repeat(auto-fit,minmax(min(100%,560px),1fr));gap:4px 28px;align-items:start}
 .table-wrap{overflow-x:auto}
-table.sortable{border-collapse:collapse;background:var(--card);font-size:14px;min-width:50%;margin-bottom:4px}
-table.sortable th,table.sortable td{border-bottom:1px solid var(--line);padding:4px 10px;text-align:left}
+table.sortable{border-collapse:collapse;background:var(--card);font-size:14px;width:100%;margin-bottom:4px}
+table.sortable th,table.sortable td{border-bottom:1px solid var(--line);padding:4px 10px;text-align:left;white-space:nowrap}
 table.sortable td.num,table.sortable th.num{text-align:right;font-variant-numeric:tabular-nums}
 table.sortable th{background:var(--accent-soft);padding:0}
 table.sortable th button{all:unset;cursor:pointer;display:block;padding:5px 10px;font-weight:600}

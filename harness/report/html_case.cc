@@ -29,6 +29,7 @@ const char* transition_badge(const std::string& t) {
   if (t == "broken") return "\xE2\x86\x93 broken";
   if (t == "better") return "\xE2\x86\x97 better";
   if (t == "worse") return "\xE2\x86\x98 worse";
+  if (t == "changed_same_f1") return "\xE2\x86\x94 changed, same F1";
   return nullptr;
 }
 
@@ -77,7 +78,7 @@ int case_priority(const CaseView& c) {
   if (c.transition == "broken") return 0;
   if (c.status == "fail" || c.status == "error") return 1;
   if (c.transition == "fixed" || c.transition == "worse" || c.transition == "better") return 2;
-  if (c.transition == "changed" || c.status == "unexpected_pass") return 3;
+  if (c.transition == "changed_same_f1" || c.status == "unexpected_pass") return 3;
   if (c.status == "expected_failure") return 4;
   return 5;
 }

@@ -11,7 +11,7 @@ namespace treegate::report::html {
 namespace {
 
 constexpr double kHeight = 220, kTop = 18, kBottom = 40, kLeft = 48, kRight = 12;
-constexpr double kBar = 26, kBarGap = 4, kGroupGap = 22;
+constexpr double kBar = 34, kBarGap = 3, kGroupGap = 20;
 
 std::string legend(const BarChart& c) {
   std::string out = "<p class=\"legend\">";

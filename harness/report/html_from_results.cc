@@ -4,10 +4,12 @@
 #include <cmath>
 #include <ctime>
 #include <map>
+#include <set>
 
 #include <fmt/format.h>
 
 #include "evaluator/bracket_io.h"
+#include "evaluator/error_classes.h"
 #include "evaluator/errors.h"
 #include "evaluator/tally.h"
 #include "harness/report/html_page.h"
@@ -55,6 +57,7 @@ struct RunTallies {
   std::map<std::string, std::size_t> suite_passed, construction_passed, suite_cases,
       construction_cases, length_cases;
   std::map<std::string, LabelCounts> label;
+  ErrorTally errors;
 };
 
 RunTallies tally(const RunResults& run) {
@@ -62,6 +65,7 @@ RunTallies tally(const RunResults& run) {
   const Scheme& scheme = run.header.scheme;
   LabelTable labels;
   Scorer scorer(scheme, labels);
+  ErrorClassifier classifier(scorer);
   for (const CaseRecord& c : run.cases) {
     const SentenceScore s = score_of(c);
     const bool pass = results::is_passing(c.outcome);
@@ -91,6 +95,7 @@ RunTallies tally(const RunResults& run) {
         lc.matched += b.matched;
       }
       for (const auto& b : sets.test) ++t.label[std::string(labels.name(b.label))].test;
+      t.errors.add(classifier.classify(gold, test), labels);
     } catch (const InputError&) {
       // A tree the run could score but we cannot read again: left out of the label table.
     }
@@ -177,6 +182,20 @@ void fill_tables(ReportView& v, const RunTallies& now, const RunTallies* old) {
   }
 }
 
+void fill_error_classes(ReportView& v, const RunTallies& now, const RunTallies* old) {
+  std::map<std::string, ErrorClassRow> rows;
+  for (const auto& [name, count] : now.errors.by_class()) rows[name].count = count.errors;
+  if (old) {
+    for (auto& [name, row] : rows) row.before = 0;
+    for (const auto& [name, count] : old->errors.by_class()) rows[name].before = count.errors;
+  }
+  for (auto& [name, row] : rows) {
+    row.name = name;
+    v.error_classes.push_back(row);
+  }
+  v.error_classes_note = "No wrong brackets: nothing to classify.";
+}
+
 }  // namespace
 
 std::string length_bucket(std::size_t words) {
@@ -189,7 +208,7 @@ std::string transition(const CaseRecord& before, const CaseRecord& after) {
   if (was && !is) return "broken";
   if (after.f1 > before.f1 + 1e-9) return "better";
   if (after.f1 < before.f1 - 1e-9) return "worse";
-  if (after.predicted != before.predicted) return "changed";
+  if (after.predicted != before.predicted) return "changed_same_f1";
   return "unchanged";
 }
 
@@ -215,8 +234,7 @@ ReportView view_of_run(const RunResults& run, const RunResults* baseline, const 
   if (baseline) old = tally(*baseline);
   fill_summary(v, now, old ? &*old : nullptr);
   fill_tables(v, now, old ? &*old : nullptr);
-  v.error_classes_note =
-      "Error classes are counted by `treegate compare`; this report shows a single run.";
+  fill_error_classes(v, now, old ? &*old : nullptr);
 
   std::map<std::pair<std::string, std::string>, const CaseRecord*> before;
   if (baseline) {
@@ -247,7 +265,7 @@ ReportView view_of_run(const RunResults& run, const RunResults* baseline, const 
       if (cv.transition == "fixed") ++*v.counts.fixed;
       if (cv.transition == "broken") ++*v.counts.broken;
     } else if (baseline) {
-      cv.transition = "new case";
+      cv.transition = "only in new";
     }
     ++v.counts.cases;
     switch (c.outcome) {
@@ -272,17 +290,18 @@ ReportView view_of_run(const RunResults& run, const RunResults* baseline, const 
   return v;
 }
 
+std::string utc_now() {
+  const std::time_t now = std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
+  std::tm utc{};
+  gmtime_r(&now, &utc);
+  char text[32];
+  std::strftime(text, sizeof text, "%Y-%m-%d %H:%M UTC", &utc);
+  return text;
+}
+
 void write_run_report(const std::string& path, const RunResults& run, const RunResults* baseline,
                       const run::RunSummary& summary) {
-  std::string date;
-  if (run.header.timings) {
-    const std::time_t now = std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
-    std::tm utc{};
-    gmtime_r(&now, &utc);
-    char text[32];
-    std::strftime(text, sizeof text, "%Y-%m-%d %H:%M UTC", &utc);
-    date = text;
-  }
+  const std::string date = run.header.timings ? utc_now() : "";
   ReportView v = view_of_run(run, baseline, {summary.gate_passed, summary.gate_reasons}, date);
   v.counts.cases = summary.cases;
   v.counts.passed = summary.passed;
@@ -293,6 +312,22 @@ void write_run_report(const std::string& path, const RunResults& run, const RunR
   if (summary.has_baseline) {
     v.counts.fixed = summary.fixes.size();
     v.counts.broken = summary.regressions.size();
+    // The run's own lists decide which cases are fixed or broken (a known failure that now
+    // passes is news, not a fix), so the badges agree with the counts and the summary JSON.
+    std::set<std::pair<std::string, std::string>> fixed, broken;
+    for (const auto& r : summary.fixes) fixed.insert({r.suite, r.id});
+    for (const auto& r : summary.regressions) broken.insert({r.suite, r.id});
+    for (auto& c : v.cases) {
+      const bool is_fixed = fixed.count({c.suite, c.id}) > 0;
+      const bool is_broken = broken.count({c.suite, c.id}) > 0;
+      if (is_fixed) c.transition = "fixed";
+      if (is_broken) c.transition = "broken";
+      if ((c.transition == "fixed" && !is_fixed) || (c.transition == "broken" && !is_broken)) {
+        c.transition = !c.f1_before || c.f1 == *c.f1_before
+                           ? (c.predicted_before ? "changed_same_f1" : "unchanged")
+                           : (c.f1 > *c.f1_before ? "better" : "worse");
+      }
+    }
   }
   write_html_report(path, v);
 }

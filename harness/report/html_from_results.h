@@ -29,6 +29,9 @@ ReportView view_of_run(const results::RunResults& run, const results::RunResults
 void write_run_report(const std::string& path, const results::RunResults& run,
                       const results::RunResults* baseline, const run::RunSummary& summary);
 
+/// The current time as "YYYY-MM-DD HH:MM UTC".
+std::string utc_now();
+
 /// The length bucket of a sentence of `words` scored words: "1–10", ..., "41+".
 std::string length_bucket(std::size_t words);
 

@@ -95,7 +95,7 @@ std::string charts(const ReportView& v) {
   }
   if (before) len.series.push_back(old_len);
   len.series.push_back(new_len);
-  BarChart err{"chart-errors", "Wrong brackets by error class", {}, {}, 0, 0};
+  BarChart err{"chart-errors", "Errors by class (count)", {}, {}, 0, 0};
   Series old_err{v.before_name, {}, true}, new_err{v.after_name, {}, false};
   for (const auto& r : v.error_classes) {
     err.categories.push_back(r.name);
@@ -118,24 +118,29 @@ std::string tables(const ReportView& v) {
   const bool before = v.summary.f1.before.has_value() || v.comparison;
   std::string out =
       "<section id=\"tables\"><h2 class=\"sec\">Breakdowns</h2>"
-      "<p class=\"note\">Click a column heading to sort.</p>";
-  for (const auto& b : v.tables) {
-    out += "<h3>" + escape(b.title) + "</h3>" + render_table(breakdown_table(b, before));
-  }
+      "<p class=\"note\">Click a column heading to sort.</p><div class=\"grid\">";
+  auto block = [&](const std::string& title, const std::string& body) {
+    out += "<div class=\"block\"><h3>" + escape(title) + "</h3>" + body + "</div>";
+  };
+  for (const auto& b : v.tables) block(b.title, render_table(breakdown_table(b, before)));
   if (!v.lengths.empty()) {
     Breakdown len{"lengths", "By sentence length", "length", "cases", v.lengths, ""};
-    out += "<h3>" + escape(len.title) + "</h3>" + render_table(breakdown_table(len, before));
+    block(len.title, render_table(breakdown_table(len, before)));
   }
-  out += "<h3>By error class</h3>";
+  std::string errors;
   if (v.error_classes.empty()) {
-    out += "<p class=\"note\">" +
-           escape(v.error_classes_note.empty() ? "No error classes in this report."
-                                               : v.error_classes_note) +
-           "</p>";
+    errors = "<p class=\"note\">" +
+             escape(v.error_classes_note.empty() ? "No error classes in this report."
+                                                 : v.error_classes_note) +
+             "</p>";
   } else {
-    out += render_table(error_class_table(v.error_classes, before, v.before_name, v.after_name));
+    errors = render_table(error_class_table(v.error_classes, before, v.before_name, v.after_name));
+    errors +=
+        "<p class=\"table-note\">Errors, not brackets: one error may account for several "
+        "wrong brackets (see docs/html.md).</p>";
   }
-  return out + "</section>";
+  block("By error class", errors);
+  return out + "</div></section>";
 }
 
 std::string select(const char* id, const char* label, const std::set<std::string>& values) {

@@ -284,11 +284,11 @@ void render_svg(std::string& out, const TreePanel& panel, const PanelLayout& p,
       if (child.is_leaf()) {
         const double wx = p.word_x[static_cast<std::size_t>(child.word)];
         const double bend = std::min(b.y + o.row_height, word_top - 2);
-        stems += fmt::format("M{:.1f} {:.1f}L{:.1f} {:.1f}V{:.1f}", b.x, b.y + b.h, wx, bend,
+        stems += fmt::format("M{:.0f} {:.0f}L{:.0f} {:.0f}V{:.0f}", b.x, b.y + b.h, wx, bend,
                              word_top - 2);
       } else {
         const NodeBox& cb = p.boxes[box_of[static_cast<std::size_t>(c)]];
-        edges += fmt::format("M{:.1f} {:.1f}L{:.1f} {:.1f}", b.x, b.y + b.h, cb.x, cb.y);
+        edges += fmt::format("M{:.0f} {:.0f}L{:.0f} {:.0f}", b.x, b.y + b.h, cb.x, cb.y);
       }
     }
   }
@@ -296,19 +296,20 @@ void render_svg(std::string& out, const TreePanel& panel, const PanelLayout& p,
   for (const NodeBox& b : p.boxes) {
     const std::uint8_t m = mark(b.node);
     std::string cls = "node";
-    std::string tip(tree.label(b.node));
+    std::string tip;  // a tooltip only where there is something to say (keeps files small)
     if (m & kMatched) cls += " m-match";
     if (m & kWrong) cls += " m-wrong", tip += ": in this tree, not in gold (wrong)";
     if (m & kMissing) cls += " m-missing", tip += ": in gold, not in the predicted tree (missing)";
     if (m & kTagWrong) cls += " m-tag", tip += ": tag differs from gold";
+    if (!tip.empty()) tip = "<title>" + escape(std::string(tree.label(b.node)) + tip) + "</title>";
     out += fmt::format(
-        "<g class=\"{}\"><title>{}</title><rect x=\"{:.1f}\" y=\"{:.1f}\" width=\"{:.1f}\" "
-        "height=\"{:.1f}\" rx=\"4\"/><text x=\"{:.1f}\" y=\"{:.1f}\">{}</text></g>",
-        cls, escape(tip), b.x - b.w / 2, b.y, b.w, b.h, b.x, b.y + b.h / 2 + o.font_px * 0.35,
+        "<g class=\"{}\">{}<rect x=\"{:.0f}\" y=\"{:.0f}\" width=\"{:.0f}\" height=\"{:.0f}\" "
+        "rx=\"4\"/><text x=\"{:.0f}\" y=\"{:.0f}\">{}</text></g>",
+        cls, tip, b.x - b.w / 2, b.y, b.w, b.h, b.x, b.y + b.h / 2 + o.font_px * 0.35,
         escape(label_text(tree, b.node, m)));
   }
   for (std::size_t w = 0; w < tree.num_words(); ++w) {
-    out += fmt::format("<text class=\"leaf\" x=\"{:.1f}\" y=\"{:.1f}\">{}</text>", p.word_x[w],
+    out += fmt::format("<text class=\"leaf\" x=\"{:.0f}\" y=\"{:.0f}\">{}</text>", p.word_x[w],
                        p.word_y, escape(tree.word(w)));
   }
   out += "</svg>";

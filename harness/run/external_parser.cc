@@ -135,14 +135,12 @@ std::vector<ParseOutcome> read_parser_output(const ProcessResult& r, std::size_t
   answered = std::min(lines.size(), count);
   for (std::size_t i = 0; i < answered; ++i) out[i] = outcome_of_line(lines[i], i + 1);
   if (!clean && lines.size() > count) {
-    for (auto& o : out)
-      o = ParseOutcome{ParseStatus::kError,
-                       "the parser wrote more lines than sentences, then " + r.failure(),
-                       {},
-                       {},
-                       {},
-                       {},
-                       0};
+    for (auto& o : out) {
+      ParseOutcome fresh;  // not ParseOutcome{...}: clang refuses `{}` for Tree's explicit ctor
+      fresh.status = ParseStatus::kError;
+      fresh.reason = "the parser wrote more lines than sentences, then " + r.failure();
+      o = std::move(fresh);
+    }
   }
   return out;
 }

@@ -21,6 +21,8 @@ std::vector<WorkItem> all_cases(const std::vector<suite::Suite>& suites) {
 namespace {
 
 struct Shared {
+  Shared(const std::vector<WorkItem>& i, const ParserFactory& p, const RunOptions& o, std::size_t b)
+      : items(i), parser(p), options(o), batch(b) {}
   const std::vector<WorkItem>& items;
   const ParserFactory& parser;
   const RunOptions& options;

@@ -241,10 +241,14 @@ Suite load_suite_string(const std::string& text, const std::string& path,
   std::set<std::string> ids;
   if (root["cases"]) read_cases(path, root["cases"], suite, ids);
   if (root["treebank"]) read_treebanks(path, root["treebank"], options, suite, ids);
-  suite.hash = fnv1a64_hex(text + suite.hash);
-  if (suite.cases.empty()) {
-    yaml::fail_at(path, root["cases"] ? root["cases"] : root, "the suite has no cases");
-  }  // the suite text and its treebank files
+  if (suite.cases.empty()) {  // an empty suite would pass any gate unnoticed
+    yaml::fail_at(path,
+                  root["cases"]      ? root["cases"]
+                  : root["treebank"] ? root["treebank"]
+                                     : root,
+                  "expected at least one case, found none (an empty suite tests nothing)");
+  }
+  suite.hash = fnv1a64_hex(text + suite.hash);  // the suite text and its treebank files
   return suite;
 }
 

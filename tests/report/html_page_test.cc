@@ -200,7 +200,7 @@ TEST_CASE("html view: length buckets and transitions") {
   CHECK(html::transition(b, a) == "worse");
   b.f1 = 50;
   b.predicted = "(S (X y))";
-  CHECK(html::transition(a, b) == "changed");
+  CHECK(html::transition(a, b) == "changed_same_f1");
   a.predicted = b.predicted;
   CHECK(html::transition(a, b) == "unchanged");
 }

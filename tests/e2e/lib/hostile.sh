@@ -2,6 +2,7 @@
 # Each test runs in a fresh temp folder (removed on exit) with $TREEGATE the binary under test.
 set -euo pipefail
 : "${TREEGATE:?set TREEGATE to the treegate binary}"
+e2e_dir=$(cd "$(dirname "$0")" && pwd)  # tests/e2e, for the helpers in lib/
 work=$(mktemp -d "${TMPDIR:-/tmp}/tg-hostile.XXXXXX")
 trap 'rm -rf "$work"' EXIT
 cd "$work"
