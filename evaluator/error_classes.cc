@@ -26,7 +26,7 @@ struct Con {
   bool matched = false;
   std::int32_t partner = kNone;  // the matched bracket on the other side
   std::int32_t owner = kNone;    // the error that accounts for it (wrong brackets only)
-  std::vector<std::int32_t> children;
+  std::int32_t first_child = kNone, next_sibling = kNone;  // bracket children, linked
 };
 
 using Span = std::pair<std::uint32_t, std::uint32_t>;
@@ -111,8 +111,12 @@ std::vector<Con> constituents(const Tree& tree, const std::vector<std::int32_t>&
         const Con& q = out[static_cast<std::size_t>(up[i])];
         c.wider_parent = q.start == c.start && q.end == c.end ? q.wider_parent : up[i];
       }
-      if (up[i] != kNone) out[static_cast<std::size_t>(up[i])].children.push_back(index[i]);
-      out.push_back(std::move(c));
+      if (up[i] != kNone) {  // prepend: the order of children does not matter here
+        Con& q = out[static_cast<std::size_t>(up[i])];
+        c.next_sibling = q.first_child;
+        q.first_child = index[i];
+      }
+      out.push_back(c);
     }
   }
   return out;
@@ -188,10 +192,13 @@ void positions(const Tree& gold, const Tree& test, const Scheme& scheme,
 
 }  // namespace
 
-SentenceErrors ErrorClassifier::classify(const Tree& gold, const Tree& test) {
+SentenceErrors ErrorClassifier::classify(const Tree& gold, const Tree& test,
+                                         const SentenceScore* score) {
   SentenceErrors result;
-  if (scorer_->score(gold, test).status != SentenceStatus::kScored) return result;
+  const SentenceStatus status = score ? score->status : scorer_->score(gold, test).status;
+  if (status != SentenceStatus::kScored) return result;
   result.classified = true;
+  if (score && score->exact_match()) return result;  // nothing wrong to classify
   Work w;
   std::vector<std::int32_t> gpos, tpos;
   positions(gold, test, scorer_->scheme(), gpos, tpos, w.words);
@@ -232,7 +239,7 @@ SentenceErrors ErrorClassifier::classify(const Tree& gold, const Tree& test) {
       const Span at = w.span(s, ci);
       const std::size_t e = w.open(ErrorKind::kCoordination, w.side[s][i].label, at);
       w.claim(s, ci, e);
-      for (std::int32_t k : w.side[s][i].children) {
+      for (std::int32_t k = w.side[s][i].first_child; k != kNone; k = w.con(s, k).next_sibling) {
         if (w.free_wrong(s, k)) w.claim(s, k, e);
       }
       const Bracket cb{0, at.first, at.second};

@@ -53,7 +53,8 @@ class ErrorClassifier {
  public:
   explicit ErrorClassifier(Scorer& scorer, ErrorClassOptions options = {});
   /// Classifies every wrong bracket of `test` against `gold` (trees in the scorer's labels).
-  SentenceErrors classify(const Tree& gold, const Tree& test);
+  /// `score`, when given, is the scorer's result for this pair (saves scoring it again).
+  SentenceErrors classify(const Tree& gold, const Tree& test, const SentenceScore* score = nullptr);
 
  private:
   struct Work;

@@ -47,7 +47,8 @@ int run_compare(int argc, char** argv) {
               "run --results`, or a grammar: then the config's suites are run with it first): "
               "transitions, figures with differences, error classes, "
               "significance, parse time; exit 1 when NEW fails the gate with OLD as baseline.",
-              "treegate compare suites/demo/results-v1.jsonl suites/demo/results-v2.jsonl"};
+              "treegate compare --config suites/demo/treegate.yaml suites/demo/v1.pcfg "
+              "suites/demo/v2.pcfg"};
   usage.exit_codes = "0 gate passed, 1 gate failed, 2 bad usage or unreadable input";
   po::options_description opts("options");
   std::string old_path, new_path, format = "text", test = "randomization", html;

@@ -72,7 +72,8 @@ class Builder {
   Scorer scorer_;
   ErrorClassifier classifier_;
   const CompareOptions& options_;
-  std::map<std::string, Row> suites_, constructions_, labels_rows_;
+  std::map<std::string, Row> suites_, constructions_;
+  std::map<LabelId, Row> labels_rows_;  // keyed by id: no string per bracket
   std::map<std::size_t, Row> lengths_;
   ErrorTally old_errors_, new_errors_;
   std::vector<std::string> suite_order_;
@@ -92,7 +93,7 @@ Scored Builder::score_side(const Tree& gold, const Tree& test) {
   Scored s;
   s.score = scorer_.score(gold, test, &s.brackets);
   if (s.score.status == SentenceStatus::kScored) {
-    s.errors = classifier_.classify(gold, test);
+    s.errors = classifier_.classify(gold, test, &s.score);
   } else {  // counted as no parse
     s.score.test_brackets = s.score.matched = 0;
     s.brackets.test.clear();
@@ -141,8 +142,11 @@ void Builder::add(const CaseRecord& o, const CaseRecord& n, Comparison& out) {
   }
   if (o.gold != n.gold) out.warnings.push_back(where + ": the gold tree changed; NEW's is used");
   const Tree ot = read(o.predicted, where + " (old)", out);
-  const Tree nt = read(n.predicted, where + " (new)", out);
-  const Scored os = score_side(gold, ot), ns = score_side(gold, nt);
+  const Tree nt =
+      o.predicted == n.predicted ? Tree(labels_) : read(n.predicted, where + " (new)", out);
+  // Most cases keep their tree from one grammar version to the next: score those once.
+  const Scored os = score_side(gold, ot);
+  const Scored ns = o.predicted == n.predicted ? os : score_side(gold, nt);
   if (os.score.status == SentenceStatus::kError) {
     out.warnings.push_back(where + ": " + os.score.reason + "; left out of the figures");
     return;
@@ -171,6 +175,10 @@ void Builder::add(const CaseRecord& o, const CaseRecord& n, Comparison& out) {
     c.transition = Transition::kChangedSameF1;
   }
   ++out.transition_counts[static_cast<int>(c.transition)];
+  if (c.transition != Transition::kUnchanged) {  // the bracket lists are shown for these only
+    c.old_side.wrong = diffs(gold, os.brackets);
+    c.new_side.wrong = diffs(gold, ns.brackets);
+  }
   ++out.paired;
   out.overall.old_side.add(os.score.gold_brackets, os.score.test_brackets, os.score.matched);
   out.overall.new_side.add(ns.score.gold_brackets, ns.score.test_brackets, ns.score.matched);
@@ -182,12 +190,12 @@ void Builder::add(const CaseRecord& o, const CaseRecord& n, Comparison& out) {
   len.new_side.add(ns.score.gold_brackets, ns.score.test_brackets, ns.score.matched);
   auto label_counts = [&](const BracketSets& b, bool is_new) {
     for (const Bracket& x : b.gold) {
-      Row& r = labels_rows_[std::string(labels_.name(x.label))];
+      Row& r = labels_rows_[x.label];
       ++(is_new ? r.new_side : r.old_side).gold;
     }
     for (const Bracket& x : b.test) {
-      Prf& p = is_new ? labels_rows_[std::string(labels_.name(x.label))].new_side
-                      : labels_rows_[std::string(labels_.name(x.label))].old_side;
+      Row& r = labels_rows_[x.label];
+      Prf& p = is_new ? r.new_side : r.old_side;
       ++p.test;
       if (x.matched) ++p.matched;
     }
@@ -220,10 +228,12 @@ void Builder::finish(Comparison& out) {
   out.overall.key = "all";
   for (const auto& name : suite_order_) out.suites.push_back(suites_[name]);
   for (auto& [k, r] : constructions_) out.constructions.push_back(r);
-  for (auto& [k, r] : labels_rows_) {
-    r.key = k;
-    out.labels.push_back(r);
+  std::map<std::string, Row> by_name;
+  for (auto& [id, r] : labels_rows_) {
+    r.key = std::string(labels_.name(id));
+    by_name[r.key] = r;
   }
+  for (auto& [name, r] : by_name) out.labels.push_back(r);
   for (auto& [k, r] : lengths_) {
     r.key = std::string(kLengthBuckets[k]);
     out.lengths.push_back(r);

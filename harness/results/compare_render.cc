@@ -217,6 +217,7 @@ std::string comparison_json(const Comparison& c) {
   j["gate"] = {{"passed", c.gate.passed}, {"reasons", c.gate.reasons}};
   ojson cases = ojson::array();
   for (const CaseChange& k : c.cases) {
+    if (k.transition == Transition::kUnchanged) continue;  // counted, not listed
     cases.push_back({{"suite", k.suite},
                      {"id", k.id},
                      {"constructions", k.constructions},

@@ -18,7 +18,8 @@ set -e
 import json, sys
 j = json.load(open(sys.argv[1]))
 t = j["transitions"]
-assert sum(t.values()) == j["paired"] == len(j["cases"]), (t, j["paired"])
+assert sum(t.values()) == j["paired"], (t, j["paired"])
+assert len(j["cases"]) == j["paired"] - t["unchanged"], len(j["cases"])
 assert t["broken"] > 0 and t["fixed"] > 0, t
 assert not j["gate"]["passed"] and j["gate"]["reasons"], j["gate"]
 s = j["significance"]
