@@ -20,11 +20,13 @@ const char* status_name(ParseStatus s) {
 }
 
 nlohmann::ordered_json to_json(std::size_t line, const ParseResult& r) {
-  nlohmann::ordered_json j = {{"line", line}, {"status", status_name(r.status)}, {"reason", r.reason}};
+  nlohmann::ordered_json j = {
+      {"line", line}, {"status", status_name(r.status)}, {"reason", r.reason}};
   const bool ok = r.status == ParseStatus::parsed;
   j["tree"] = ok ? nlohmann::ordered_json(to_bracketed(r.tree)) : nlohmann::ordered_json(nullptr);
   j["logprob"] = ok ? nlohmann::ordered_json(r.logprob) : nlohmann::ordered_json(nullptr);
-  j["inside_logprob"] = ok ? nlohmann::ordered_json(r.inside_logprob) : nlohmann::ordered_json(nullptr);
+  j["inside_logprob"] =
+      ok ? nlohmann::ordered_json(r.inside_logprob) : nlohmann::ordered_json(nullptr);
   j["parses"] = ok ? nlohmann::ordered_json(r.parses) : nlohmann::ordered_json(nullptr);
   j["parses_exact"] = ok && r.parses_exact;
   j["parses_infinite"] = ok && r.parses_infinite;
@@ -55,7 +57,8 @@ int run_parse(int argc, char** argv) {
       "parse", "--grammar GRAMMAR [FILE|-] [options]",
       "Parse tokenised sentences, one per line, with the built-in exhaustive CKY "
       "parser; print the most probable tree of each.",
-      "echo 'The crew lifted the crate with the torn label .' | treegate parse --grammar suites/demo/v1.pcfg --format json",
+      "echo 'The crew lifted the crate with the torn label .' | treegate parse --grammar "
+      "suites/demo/v1.pcfg --format json",
       "0 done (sentences without a parse included), 2 bad usage or unreadable grammar/input"};
   po::options_description opts("options");
   std::string grammar_file, input = "-", format = "text";

@@ -176,7 +176,8 @@ void check_unary_cycles(const Grammar& g, std::vector<LintFinding>& out) {
     std::string text;
     for (const std::string& s : path) text += s + " -> ";
     out.push_back({"unary-cycle", edges.front().second,
-                   "unary cycle " + text + from + (path.size() == 1 ? " (rule on line " : " (rules on lines ") + lines + ")"});
+                   "unary cycle " + text + from +
+                       (path.size() == 1 ? " (rule on line " : " (rules on lines ") + lines + ")"});
     reported.insert(from);
   }
 }

@@ -44,11 +44,11 @@ struct RunSummary {
   Counts totals;
   Figures figures;
   std::optional<Figures> baseline_figures;
-  std::vector<GroupFigures> suites;                  // header order
-  std::vector<GroupFigures> constructions;           // sorted by name
-  std::vector<ConstructionGate> construction_gates;  // one per construction
-  std::vector<CaseRef> regressions;                  // passed in the baseline, fail now
-  std::vector<CaseRef> fixes;                        // failed in the baseline, pass now
+  std::vector<GroupFigures> suites;                     // header order
+  std::vector<GroupFigures> constructions;              // sorted by name
+  std::vector<ConstructionGate> construction_gates;     // one per construction
+  std::vector<CaseRef> regressions;                     // passed in the baseline, fail now
+  std::vector<CaseRef> fixes;                           // failed in the baseline, pass now
   std::vector<std::optional<double>> baseline_case_f1;  // per case of the run; null: not there
   bool has_baseline = false;
   bool gate_passed = true;

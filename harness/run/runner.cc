@@ -79,8 +79,14 @@ void work(Shared& sh) {
 
 std::vector<results::CaseRecord> run_cases(const std::vector<WorkItem>& items,
                                            const ParserFactory& parser, const RunOptions& options) {
-  Shared sh{items, parser, options, std::max<std::size_t>(1, parser.batch_size()), {0}, {0},
-            std::vector<results::CaseRecord>(items.size()), std::vector<char>(items.size(), 0)};
+  Shared sh{items,
+            parser,
+            options,
+            std::max<std::size_t>(1, parser.batch_size()),
+            {0},
+            {0},
+            std::vector<results::CaseRecord>(items.size()),
+            std::vector<char>(items.size(), 0)};
   // With few cases, smaller batches keep every worker busy.
   const std::size_t jobs = std::max<std::size_t>(1, options.jobs);
   if (sh.batch > 1 && items.size() < sh.batch * jobs) {

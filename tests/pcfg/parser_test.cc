@@ -8,6 +8,7 @@
 #include "evaluator/bracket_io.h"
 #include "evaluator/errors.h"
 #include "harness/pcfg/parser.h"
+#include "tests/pcfg/textbook_grammar.h"
 
 namespace treegate::pcfg {
 namespace {
@@ -35,20 +36,7 @@ ParseResult parse(const std::shared_ptr<const CompiledGrammar>& g, const std::st
 // values are re-derived by exact arithmetic: t1 (PP on the noun phrase)
 // = 1 * 0.1 * 0.7 * 1 * 0.4 * 0.18 * 1 * 1 * 0.18 = 0.0009072; t2 (PP on the verb phrase)
 // = 1 * 0.1 * 0.3 * 0.7 * 1 * 0.18 * 1 * 1 * 0.18 = 0.0006804; their sum 0.0015876.
-const char* kAstronomers = R"(@start S
-S -> NP VP 1.0
-PP -> P NP 1.0
-VP -> V NP 0.7
-VP -> VP PP 0.3
-P -> "with" 1.0
-V -> "saw" 1.0
-NP -> NP PP 0.4
-NP -> "astronomers" 0.1
-NP -> "ears" 0.18
-NP -> "saw" 0.04
-NP -> "stars" 0.18
-NP -> "telescopes" 0.1
-)";
+using testdata::kAstronomers;
 
 TEST_CASE("Manning & Schuetze 1999 ch. 11: astronomers saw stars with ears") {
   auto g = compile(kAstronomers);

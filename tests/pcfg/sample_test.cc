@@ -9,6 +9,7 @@
 #include "evaluator/errors.h"
 #include "harness/pcfg/estimate.h"
 #include "harness/pcfg/sample.h"
+#include "tests/pcfg/textbook_grammar.h"
 
 namespace treegate::pcfg {
 namespace {
@@ -16,20 +17,7 @@ namespace {
 // The PCFG of Manning & Schuetze, "Foundations of Statistical Natural Language Processing"
 // (1999), chapter 11, the "astronomers saw stars with ears" example (recalled from memory).
 // It is consistent: an NP makes on average 0.4 * 2 = 0.8 NPs, a VP 0.3 VPs.
-const char* kAstronomers = R"(@start S
-S -> NP VP 1.0
-PP -> P NP 1.0
-VP -> V NP 0.7
-VP -> VP PP 0.3
-P -> "with" 1.0
-V -> "saw" 1.0
-NP -> NP PP 0.4
-NP -> "astronomers" 0.1
-NP -> "ears" 0.18
-NP -> "saw" 0.04
-NP -> "stars" 0.18
-NP -> "telescopes" 0.1
-)";
+using testdata::kAstronomers;
 
 std::vector<std::string> draw(const Grammar& g, std::size_t n, SampleOptions options) {
   std::vector<std::string> out;
