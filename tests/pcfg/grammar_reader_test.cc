@@ -142,9 +142,10 @@ TEST_CASE("every syntax error names file:line:col and what was expected") {
        "g.pcfg:4:4: expected a nonterminal name, not '->' (names may not be '->' or start with '<' "
        "or '@')"},
   };
-  for (const auto& [text, message] : cases) {
+  for (const auto& row : cases) {
+    const auto& text = row.first;  // CAPTURE uses a lambda: clang 14 cannot capture a binding
     CAPTURE(text);
-    CHECK(error_of(text) == message);
+    CHECK(error_of(text) == row.second);
   }
 }
 
@@ -173,9 +174,10 @@ TEST_CASE("word_signature") {
       {"ENDED", "caps-ed"},
       {"", "other"},
   };
-  for (const auto& [word, sig] : cases) {
+  for (const auto& row : cases) {
+    const auto& word = row.first;  // CAPTURE uses a lambda: clang 14 cannot capture a binding
     CAPTURE(word);
-    CHECK(word_signature(word) == sig);
+    CHECK(word_signature(word) == row.second);
   }
 }
 
