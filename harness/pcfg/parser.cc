@@ -101,8 +101,8 @@ class Filler {
       if (c_.list_begin[left] == c_.list_end[left] || c_.list_begin[right] == c_.list_end[right])
         continue;
       const double factor = std::exp(c_.scale[left] + c_.scale[right] - top);
-      const std::uint64_t* rbits = &c_.right_bits[right * words];
-      const std::uint32_t* rslot = &c_.right_slot[right * g_.num_right()];
+      const std::uint64_t* rbits = c_.right_bits.data() + right * words;
+      const std::uint32_t* rslot = c_.right_slot.data() + right * g_.num_right();
       const auto split = static_cast<std::uint32_t>(k);
       for (std::uint32_t li = c_.list_begin[left]; li < c_.list_end[left]; ++li) {
         const Symbol b = lists[li];
@@ -157,8 +157,8 @@ class Filler {
     std::uint32_t* post_at = c_.post_at.data();
     std::uint32_t* post_stamp = c_.post_stamp.data();
     const std::uint32_t now = c_.stamp_now;
-    std::uint64_t* rbits = &c_.right_bits[cell * g_.right_words()];
-    std::uint32_t* rslot = &c_.right_slot[cell * g_.num_right()];
+    std::uint64_t* rbits = c_.right_bits.data() + cell * g_.right_words();
+    std::uint32_t* rslot = c_.right_slot.data() + cell * g_.num_right();
     std::fill_n(rbits, g_.right_words(), 0);
     const auto begin = static_cast<std::uint32_t>(c_.lists.size());
     c_.list_begin[cell] = begin;
