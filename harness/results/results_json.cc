@@ -26,7 +26,7 @@ Scheme scheme_from_json(const json& j) {
   j.at("empty_tag").get_to(s.empty_tag);
   j.at("strip_functions").get_to(s.strip_function_tags);
   j.at("same_label").get_to(s.equivalent_labels);
-  j.at("length_cutoff").get_to(s.length_cutoff);
+  get_whole(j, "length_cutoff", s.length_cutoff);
   j.at("count_unparsed").get_to(s.count_unparsed);
   return s;
 }
@@ -50,7 +50,7 @@ suite::GateSettings gate_from_json(const json& j) {
   if (!j.at("min_f1").is_null()) g.min_f1 = j.at("min_f1").get<double>();
   j.at("suite_min_f1").get_to(g.suite_min_f1);
   j.at("construction_min_f1").get_to(g.construction_min_f1);
-  j.at("allowed_new_failures").get_to(g.allowed_new_failures);
+  get_whole(j, "allowed_new_failures", g.allowed_new_failures);
   if (!j.at("max_construction_drop").is_null()) {
     g.max_construction_drop = j.at("max_construction_drop").get<double>();
   }

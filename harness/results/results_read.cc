@@ -24,7 +24,7 @@ std::optional<T> opt(const json& j, const char* key) {
 
 Header read_header(const json& j) {
   Header h;
-  h.format = j.at("treegate_results").get<int>();
+  get_whole(j, "treegate_results", h.format);
   if (h.format != kFormatVersion) {
     throw std::runtime_error("expected results format " + std::to_string(kFormatVersion) +
                              ", found " + std::to_string(h.format));
@@ -34,14 +34,16 @@ Header read_header(const json& j) {
   j.at("grammar_hash").get_to(h.grammar_hash);
   j.at("parser").get_to(h.parser);
   for (const auto& s : j.at("suites")) {
+    std::size_t cases = 0;
+    get_whole(s, "cases", cases);
     h.suites.push_back({s.at("name").get<std::string>(), s.at("file").get<std::string>(),
-                        s.at("hash").get<std::string>(), s.at("cases").get<std::size_t>()});
+                        s.at("hash").get<std::string>(), cases});
   }
   h.scheme = scheme_from_json(j.at("scheme"));
   h.gate = gate_from_json(j.at("gate"));
   j.at("case_min_f1").get_to(h.case_min_f1);
-  j.at("shard").at("index").get_to(h.shard.index);
-  j.at("shard").at("count").get_to(h.shard.count);
+  get_whole(j.at("shard"), "index", h.shard.index);
+  get_whole(j.at("shard"), "count", h.shard.count);
   j.at("timings").get_to(h.timings);
   return h;
 }
