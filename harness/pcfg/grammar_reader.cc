@@ -34,7 +34,7 @@ class LineReader {
     std::size_t i = 0;
     while (i < text.size()) {
       char c = text[i];
-      if (c == ' ' || c == '\t') {
+      if (c == ' ' || c == '\t' || c == '\r') {  // a stray CR is blank, as at a line's end
         ++i;
       } else if (c == '#') {
         break;
@@ -42,7 +42,8 @@ class LineReader {
         i = read_quoted(text, i, tokens);
       } else {
         std::size_t start = i;
-        while (i < text.size() && text[i] != ' ' && text[i] != '\t' && text[i] != '#') {
+        while (i < text.size() && text[i] != ' ' && text[i] != '\t' && text[i] != '\r' &&
+               text[i] != '#') {
           if (text[i] == '"')
             fail(i + 1, "expected whitespace before '\"' (a terminal is a separate item)");
           ++i;
@@ -76,7 +77,8 @@ class LineReader {
     if (value.empty())
       fail(open + 1, "empty terminal \"\": expected at least one character between the quotes");
     std::size_t end = i + 1;
-    if (end < text.size() && text[end] != ' ' && text[end] != '\t' && text[end] != '#') {
+    if (end < text.size() && text[end] != ' ' && text[end] != '\t' && text[end] != '\r' &&
+        text[end] != '#') {
       fail(end + 1, "expected whitespace after the closing '\"' of a terminal");
     }
     out.push_back({TokenKind::quoted, std::move(value), open + 1});

@@ -23,11 +23,12 @@ suite::GateSettings gate_from_json(const nlohmann::json& j);
 template <class T>
 void get_whole(const nlohmann::json& j, const char* key, T& out) {
   const nlohmann::json& v = j.at(key);
-  const bool fits = v.is_number_unsigned()
-                        ? v.get<std::uint64_t>() <= static_cast<std::uint64_t>(std::numeric_limits<T>::max())
-                        : v.is_number_integer() && v.get<std::int64_t>() >= 0 &&
-                              static_cast<std::uint64_t>(v.get<std::int64_t>()) <=
-                                  static_cast<std::uint64_t>(std::numeric_limits<T>::max());
+  const bool fits =
+      v.is_number_unsigned()
+          ? v.get<std::uint64_t>() <= static_cast<std::uint64_t>(std::numeric_limits<T>::max())
+          : v.is_number_integer() && v.get<std::int64_t>() >= 0 &&
+                static_cast<std::uint64_t>(v.get<std::int64_t>()) <=
+                    static_cast<std::uint64_t>(std::numeric_limits<T>::max());
   if (!fits) throw std::runtime_error(std::string("expected a whole number for \"") + key + "\"");
   out = static_cast<T>(v.get<std::int64_t>());
 }

@@ -106,3 +106,14 @@ TEST_CASE("results: fnv1a64 matches the published test vectors") {
   CHECK(tr::fnv1a64_hex("") == "cbf29ce484222325");
   CHECK(tr::fnv1a64_hex("a") == "af63dc4c8601ec8c");
 }
+
+TEST_CASE("results_huge_float_count_regression: whole-number fields refuse floats out of range") {
+  // Found by fuzz_results: a suite's "cases" of 7.7e54 was cast to an integer (undefined).
+  std::string text = tr::results_text(sample());
+  const std::string key = "\"cases\":";
+  const auto at = text.find(key);
+  REQUIRE(at != std::string::npos);
+  const auto end = text.find_first_of(",}", at);
+  text.replace(at + key.size(), end - at - key.size(), "7.77778e+54");
+  CHECK_THROWS(tr::parse_results(text, "r.jsonl"));
+}
