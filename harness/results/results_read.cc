@@ -117,7 +117,13 @@ RunResults parse_results(const std::string& text, const std::string& source) {
     if (have_header) {
       CaseRecord c;
       std::size_t col = 1;
-      const std::string problem = detail::read_case_line(line, c, col);
+      std::string problem;
+      try {
+        problem = detail::read_case_line(line, c, col);
+      } catch (const json::exception& e) {
+        problem = std::string("expected a results case: ") + e.what();
+        col = 1;
+      }
       if (!problem.empty()) throw InputError(source, line_no, col, problem);
       out.cases.push_back(std::move(c));
       continue;
@@ -127,6 +133,9 @@ RunResults parse_results(const std::string& text, const std::string& source) {
       j = json::parse(line);
     } catch (const json::parse_error& e) {
       throw InputError(source, line_no, column_of(e), "expected one JSON object per line");
+    } catch (const json::exception& e) {  // e.g. a number too large for a double
+      throw InputError(source, line_no, 1,
+                       std::string("expected one JSON object per line: ") + e.what());
     }
     if (!j.is_object()) throw InputError(source, line_no, 1, "expected a JSON object");
     try {

@@ -117,3 +117,9 @@ TEST_CASE("results_huge_float_count_regression: whole-number fields refuse float
   text.replace(at + key.size(), end - at - key.size(), "7.77778e+54");
   CHECK_THROWS(tr::parse_results(text, "r.jsonl"));
 }
+
+TEST_CASE("results_number_overflow_regression: a number too large for a double is an input error") {
+  // Found by fuzz_results: nlohmann's out_of_range for "-4.3e1111111" escaped as a crash.
+  CHECK_THROWS_AS(tr::parse_results("{\"treegate_results\":1,\"x\":-4.3e1111111}\n", "r.jsonl"),
+                  treegate::InputError);
+}
