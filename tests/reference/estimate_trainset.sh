@@ -2,11 +2,7 @@
 # Training-set sanity: grammars estimated from a treebank parse its own sentences far above a
 # right-branching baseline (demo treebank always; gum-ccby-train when the shared folder exists).
 set -euo pipefail
-py=/usr/bin/python3
-if ! $py -c 'import nltk' 2>/dev/null; then
-  if [ -n "${CI:-}" ]; then echo "python3-nltk is missing (ci/install-deps installs it)"; exit 1; fi
-  echo "not run: /usr/bin/python3 has no nltk (run ci/install-deps)"; exit 0
-fi
+. "$SOURCE_DIR/tests/reference/lib/require_nltk.bash"
 work=$(mktemp -d)
 trap 'rm -rf "$work"' EXIT
 script="$SOURCE_DIR/tests/reference/estimate_trainset.py"
