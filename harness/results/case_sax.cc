@@ -1,7 +1,9 @@
 #include "harness/results/case_sax.h"
 
+#include <cmath>
 #include <nlohmann/json.hpp>
 #include <set>
+#include <type_traits>
 
 namespace treegate::results::detail {
 namespace {
@@ -120,13 +122,16 @@ class CaseSax : public nlohmann::json_sax<json> {
 
 bool CaseSax::number(double v) {
   if (depth_ != 1) return wrong("number");
-  const auto u32 = [&](std::uint32_t& out) {
-    if (v < 0 || v > 4294967295.0) return wrong("number");
-    out = static_cast<std::uint32_t>(v);
+  // Counts are whole numbers in range; anything else (negative, fractional, 1e300) is an
+  // input error, never a cast out of range.
+  const auto whole = [&](auto& out, double max) {
+    if (!(v >= 0 && v <= max && v == std::floor(v))) return wrong("number (expected a count)");
+    out = static_cast<std::remove_reference_t<decltype(out)>>(v);
     return true;
   };
+  const auto u32 = [&](std::uint32_t& out) { return whole(out, 4294967295.0); };
   if (key_ == "n")
-    c_.n = static_cast<std::size_t>(v < 0 ? 0 : v);
+    return whole(c_.n, 9007199254740992.0);  // 2^53: every count a double holds exactly
   else if (key_ == "logprob")
     c_.logprob = v;
   else if (key_ == "inside_logprob")

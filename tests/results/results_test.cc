@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cstdio>
+#include <cstring>
 #include <filesystem>
 #include <fstream>
 
@@ -122,4 +123,21 @@ TEST_CASE("results_number_overflow_regression: a number too large for a double i
   // Found by fuzz_results: nlohmann's out_of_range for "-4.3e1111111" escaped as a crash.
   CHECK_THROWS_AS(tr::parse_results("{\"treegate_results\":1,\"x\":-4.3e1111111}\n", "r.jsonl"),
                   treegate::InputError);
+}
+
+TEST_CASE("results_case_count_regression: a case's counts must be whole numbers in range") {
+  // Found by the CI fuzz smoke (fuzz_results): a case's "n" of 1e300 was cast to an integer
+  // (undefined behaviour). Counts that are negative, fractional or too large are input errors.
+  for (const char* bad : {"1e300", "-1", "2.5"}) {
+    for (const char* key : {"\"n\":", "\"matched\":"}) {
+      std::string text = tr::results_text(sample());
+      const auto at = text.rfind(key);
+      REQUIRE(at != std::string::npos);
+      const auto end = text.find_first_of(",}", at);
+      text.replace(at + std::strlen(key), end - at - std::strlen(key), bad);
+      CAPTURE(bad);
+      CAPTURE(key);
+      CHECK_THROWS_AS(tr::parse_results(text, "r.jsonl"), treegate::InputError);
+    }
+  }
 }
