@@ -63,6 +63,7 @@ int run_parse(int argc, char** argv) {
   po::options_description opts("options");
   std::string grammar_file, input = "-", format = "text";
   std::size_t kbest = 0, max_chart_mb = 4096;
+  double timeout_seconds = 60;
   unsigned jobs = 1;
   opts.add_options()("grammar,g", po::value(&grammar_file)->required(), "grammar file (.pcfg)")(
       "input", po::value(&input),
@@ -72,7 +73,9 @@ int run_parse(int argc, char** argv) {
       "format", po::value(&format), "text (default): one tree per line; json: one object per line")(
       "jobs,j", po::value(&jobs), "parse on N threads (output order stays the input order)")(
       "max-chart-mb", po::value(&max_chart_mb),
-      "refuse sentences whose chart needs more (default 4096)");
+      "refuse sentences whose chart needs more (default 4096)")(
+      "timeout-seconds", po::value(&timeout_seconds),
+      "give up on a sentence after this long (default 60; 0: no limit)");
   po::positional_options_description pos;
   pos.add("input", 1);
   po::variables_map vm;
@@ -101,6 +104,9 @@ int run_parse(int argc, char** argv) {
   options.gold_tags = tagged;
   options.kbest = kbest;
   options.max_chart_bytes = max_chart_mb << 20;
+  if (!(timeout_seconds >= 0))
+    return fail("parse", "--timeout-seconds must be 0 (no limit) or a positive number");
+  options.max_seconds = timeout_seconds;
   std::cout.precision(17);
   pcfg::parse_in_order(grammar, sentences, options, jobs, [&](std::size_t i, ParseResult& r) {
     if (format == "json") {

@@ -34,7 +34,8 @@ std::string check_input(const CompiledGrammar& g, const std::vector<std::string>
   const std::size_t need = chart_bytes(g, n);
   if (need > options.max_chart_bytes) {
     return "error: sentence of " + std::to_string(n) + " words needs ~" + mib(need) +
-           " of chart, over the cap of " + mib(options.max_chart_bytes) + "; raise --max-chart-mb";
+           " of chart, over the cap of " + mib(options.max_chart_bytes) +
+           "; raise --max-chart-mb (parser setting max_chart_mb)";
   }
   for (std::size_t i = 0; i < n; ++i) {
     if (options.gold_tags) {

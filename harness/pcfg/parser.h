@@ -4,6 +4,7 @@
 // thread at a time; any number of Parsers may share one CompiledGrammar.
 #pragma once
 
+#include <atomic>
 #include <cstdint>
 #include <memory>
 #include <string>
@@ -20,6 +21,8 @@ struct ParseOptions {
   bool gold_tags = false;  // use the given tags as the only preterminals of the words
   std::size_t kbest = 0;   // also list the k best trees (0: none)
   std::size_t max_chart_bytes = std::size_t{4} << 30;  // refuse sentences whose chart is bigger
+  double max_seconds = 0;                   // give up on a sentence after this long (0: no limit)
+  const std::atomic<bool>* stop = nullptr;  // when set and true, give up at the next cell
 };
 
 enum class ParseStatus { parsed, no_parse, error };

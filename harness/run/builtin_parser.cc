@@ -10,9 +10,12 @@ namespace {
 
 class BuiltinParser : public SentenceParser {
  public:
-  BuiltinParser(std::shared_ptr<const pcfg::CompiledGrammar> grammar, bool gold_tags)
+  BuiltinParser(std::shared_ptr<const pcfg::CompiledGrammar> grammar, const BuiltinSettings& s)
       : parser_(std::move(grammar)) {
-    options_.gold_tags = gold_tags;
+    options_.gold_tags = s.gold_tags;
+    options_.max_seconds = s.max_seconds;
+    options_.max_chart_bytes = s.max_chart_bytes;
+    options_.stop = s.stop;
   }
 
   ParseOutcome parse(const ParseRequest& request) override {
@@ -47,24 +50,26 @@ class BuiltinParser : public SentenceParser {
 
 class BuiltinFactory : public ParserFactory {
  public:
-  BuiltinFactory(std::shared_ptr<const pcfg::CompiledGrammar> grammar, bool gold_tags)
-      : grammar_(std::move(grammar)), gold_tags_(gold_tags) {}
+  BuiltinFactory(std::shared_ptr<const pcfg::CompiledGrammar> grammar, const BuiltinSettings& s)
+      : grammar_(std::move(grammar)), settings_(s) {}
   std::unique_ptr<SentenceParser> make() const override {
-    return std::make_unique<BuiltinParser>(grammar_, gold_tags_);
+    return std::make_unique<BuiltinParser>(grammar_, settings_);
   }
-  std::string describe() const override { return gold_tags_ ? "builtin (gold tags)" : "builtin"; }
-  bool wants_tags() const override { return gold_tags_; }
+  std::string describe() const override {
+    return settings_.gold_tags ? "builtin (gold tags)" : "builtin";
+  }
+  bool wants_tags() const override { return settings_.gold_tags; }
 
  private:
   std::shared_ptr<const pcfg::CompiledGrammar> grammar_;
-  bool gold_tags_;
+  BuiltinSettings settings_;
 };
 
 }  // namespace
 
 std::unique_ptr<ParserFactory> make_builtin_parser(const std::string& grammar_path,
-                                                   bool gold_tags) {
-  return std::make_unique<BuiltinFactory>(pcfg::load_compiled_grammar(grammar_path), gold_tags);
+                                                   const BuiltinSettings& settings) {
+  return std::make_unique<BuiltinFactory>(pcfg::load_compiled_grammar(grammar_path), settings);
 }
 
 }  // namespace treegate::run

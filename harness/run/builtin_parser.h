@@ -3,6 +3,7 @@
 // every worker; each worker gets its own pcfg::Parser (chart buffers are per thread).
 #pragma once
 
+#include <atomic>
 #include <memory>
 #include <string>
 
@@ -10,7 +11,15 @@
 
 namespace treegate::run {
 
+struct BuiltinSettings {
+  bool gold_tags = false;   // take the gold tags as the only preterminals
+  double max_seconds = 60;  // per sentence; 0: no limit
+  std::size_t max_chart_bytes = std::size_t{4} << 30;
+  const std::atomic<bool>* stop = nullptr;  // a running parse gives up when this turns true
+};
+
 /// Loads and compiles `grammar_path` (InputError on a bad grammar).
-std::unique_ptr<ParserFactory> make_builtin_parser(const std::string& grammar_path, bool gold_tags);
+std::unique_ptr<ParserFactory> make_builtin_parser(const std::string& grammar_path,
+                                                   const BuiltinSettings& settings);
 
 }  // namespace treegate::run

@@ -73,7 +73,12 @@ std::unique_ptr<ParserFactory> make_parser(const suite::ProjectConfig& config,
   if (config.grammar.empty()) {
     throw InputError("no grammar: give --grammar FILE or `grammar:` in treegate.yaml");
   }
-  return make_builtin_parser(config.grammar, p.gold_tags);
+  BuiltinSettings s;
+  s.gold_tags = p.gold_tags;
+  s.max_seconds = p.timeout_seconds;
+  s.max_chart_bytes = p.max_chart_mb << 20;
+  s.stop = stop;
+  return make_builtin_parser(config.grammar, s);
 #else
   throw InputError(
       "this build has no built-in parser; set `parser: {command: [...]}` in treegate.yaml");

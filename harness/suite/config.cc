@@ -66,8 +66,9 @@ ParserConfig read_parser(const std::string& file, const YAML::Node& node) {
     }
     return p;
   }
-  yaml::check_keys(file, node, {"command", "mode", "timeout_seconds", "batch_size", "gold_tags"},
-                   "the parser settings");
+  yaml::check_keys(
+      file, node, {"command", "mode", "timeout_seconds", "batch_size", "gold_tags", "max_chart_mb"},
+      "the parser settings");
   if (node["command"]) {
     const YAML::Node cmd = node["command"];
     if (!cmd.IsSequence()) {
@@ -96,6 +97,10 @@ ParserConfig read_parser(const std::string& file, const YAML::Node& node) {
     p.batch_size = static_cast<std::size_t>(yaml::read_int(file, node["batch_size"], 1, 1000000));
   }
   if (node["gold_tags"]) p.gold_tags = yaml::read_bool(file, node["gold_tags"]);
+  if (node["max_chart_mb"]) {
+    p.max_chart_mb =
+        static_cast<std::size_t>(yaml::read_int(file, node["max_chart_mb"], 1, 1 << 24));
+  }
   return p;
 }
 

@@ -16,6 +16,7 @@ struct ParserConfig {
   std::vector<std::string> command;  // argv of an external parser (never run by a shell)
   bool batch = true;                 // false: one process per sentence
   double timeout_seconds = 60;       // per sentence (a batch gets this times its size)
+  std::size_t max_chart_mb = 4096;   // built-in parser: refuse sentences whose chart is bigger
   std::size_t batch_size = 64;       // sentences per process in batch mode
   bool gold_tags = false;            // built-in parser: take the gold tags as given
 };

@@ -2,7 +2,8 @@
 # External parser faults and interrupted runs: a crash, a hang, garbage, too many lines and a
 # flood on stderr each make only the affected case an error (with the reason) and the rest of
 # the run completes; no parser process is left behind; SIGKILL during a run leaves the previous
-# results file intact; SIGINT stops the run within about a second and writes no files.
+# results file intact; SIGINT stops the run within about a second and writes no files. The
+# built-in parser's time limit and stop flag are checked at the end.
 set -euo pipefail
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
@@ -123,3 +124,45 @@ grep -q "interrupted" int-err.txt || fail "no message: $(cat int-err.txt)"
 sleep 0.3
 if pgrep -f "$parser" > /dev/null; then fail "a parser process is left after SIGINT"; fi
 echo "ok (SIGINT stop took $ms ms)"
+
+# Built-in parser: a sentence that would take hours under X -> X X | a is stopped by the time
+# limit and is an error with the reason; the other cases are parsed. SIGINT during such a
+# sentence stops the run at once (the parser checks the stop flag between chart cells).
+printf '@start X\nX -> X X 0.5\nX -> "a" 0.5\n' > cyclic.pcfg
+mkdir slow
+long_tree=$(/usr/bin/python3 -c "print('(X ' * 2999 + '(X a) ' * 3000 + ')' * 2999)")
+{
+  echo "suite: slow"
+  echo "cases:"
+  echo "  - {id: short, tree: \"(X (X a) (X a))\"}"
+  echo "  - {id: long, tree: \"$long_tree\"}"
+} > slow/slow.yaml
+cat > treegate.yaml <<Y
+grammar: cyclic.pcfg
+suites: [slow/]
+parser:
+  timeout_seconds: 0.5
+Y
+"$TREEGATE" run --jobs 2 --results slow.jsonl > slow-out.txt 2> slow-err.txt || true
+/usr/bin/python3 - slow.jsonl <<'PY'
+import json, sys
+rows = {r["id"]: r for r in map(json.loads, list(open(sys.argv[1]))[1:])}
+assert rows["short"]["outcome"] == "pass", rows["short"]
+assert rows["long"]["outcome"] == "error", rows["long"]["outcome"]
+assert rows["long"]["reason"].startswith(
+    "sentence of 3000 words not parsed within the time limit of 0.5 s"), rows["long"]["reason"]
+PY
+sed -i 's/timeout_seconds: 0.5/timeout_seconds: 600/' treegate.yaml
+"$TREEGATE" run --jobs 1 --results slow-int.jsonl > /dev/null 2> slow-int-err.txt &
+pid=$!
+sleep 1.5
+start=$(date +%s%N)
+kill -INT $pid
+set +e
+wait $pid
+code=$?
+set -e
+ms=$(( ($(date +%s%N) - start) / 1000000 ))
+[ "$code" = 2 ] || fail "SIGINT during a built-in parse: exit code $code"
+[ "$ms" -lt 1500 ] || fail "SIGINT during a built-in parse took $ms ms"
+echo "ok (built-in parser: time limit; SIGINT during a long parse stopped in $ms ms)"

@@ -179,6 +179,37 @@ TEST_CASE("the memory guard refuses a sentence whose chart is over the cap") {
         std::string::npos);
 }
 
+TEST_CASE("the time limit stops a parse that fits in memory but would run for long") {
+  // X -> X X | a on 3000 words: every span has every split, about 4.5e9 rule applications,
+  // far more than 0.2 s of work on any machine this runs on. The chart fits under the cap.
+  auto g = compile("@start X\nX -> X X 0.5\nX -> \"a\" 0.5\n");
+  ParseOptions options;
+  options.max_seconds = 0.2;
+  const std::vector<std::string> words(3000, "a");
+  Parser parser(g);
+  const ParseResult r = parser.parse(words, nullptr, options);
+  CHECK(r.status == ParseStatus::error);
+  CHECK(r.reason.find("sentence of 3000 words not parsed within the time limit of 0.2 s "
+                      "(stopped at spans of ") == 0);
+  CHECK(r.reason.find("; raise --timeout-seconds (parser setting timeout_seconds)") !=
+        std::string::npos);
+  // The same parser is usable afterwards, and a short sentence parses within the limit.
+  const ParseResult ok = parser.parse({"a", "a", "a"}, nullptr, options);
+  CHECK(ok.status == ParseStatus::parsed);
+  CHECK(ok.parses == 2);
+}
+
+TEST_CASE("a stop flag makes a running parse give up at once") {
+  auto g = compile("@start X\nX -> X X 0.5\nX -> \"a\" 0.5\n");
+  const std::atomic<bool> stop{true};
+  ParseOptions options;
+  options.stop = &stop;
+  Parser parser(g);
+  const ParseResult r = parser.parse(std::vector<std::string>(3000, "a"), nullptr, options);
+  CHECK(r.status == ParseStatus::error);
+  CHECK(r.reason == "stopped before the parse was done");
+}
+
 TEST_CASE("compile errors") {
   CHECK_THROWS_WITH_AS(compile("S -> \"a\" 1\n"),
                        "t.pcfg: no @start line: expected '@start SYMBOL' before the rules",

@@ -125,3 +125,20 @@ TEST_CASE("config: keys, paths and errors") {
   CHECK_THROWS_WITH(ts::load_config_string("parser:\n  command: ./p --fast\n", "t.yaml"),
                     doctest::Contains("t.yaml:2:12: expected the command as a list"));
 }
+
+TEST_CASE("config: the built-in parser's time limit and chart cap") {
+  const ts::ProjectConfig d = ts::load_config_string("grammar: g.pcfg\n", "t.yaml");
+  CHECK(d.parser.builtin);
+  CHECK(d.parser.timeout_seconds == 60);
+  CHECK(d.parser.max_chart_mb == 4096);
+  const ts::ProjectConfig c = ts::load_config_string(
+      "parser:\n  timeout_seconds: 2.5\n  max_chart_mb: 512\n  gold_tags: true\n", "t.yaml");
+  CHECK(c.parser.builtin);
+  CHECK(c.parser.timeout_seconds == 2.5);
+  CHECK(c.parser.max_chart_mb == 512);
+  CHECK(c.parser.gold_tags);
+  CHECK_THROWS_WITH(ts::load_config_string("parser:\n  max_chart_mb: 0\n", "t.yaml"),
+                    doctest::Contains("t.yaml:2:17:"));
+  CHECK_THROWS_WITH(ts::load_config_string("parser:\n  timeout_seconds: -1\n", "t.yaml"),
+                    "t.yaml:2:20: expected a positive number of seconds");
+}
