@@ -31,7 +31,9 @@ SpanCheck parse_span_check(const std::string& text, std::size_t words, const std
   if (space == std::string::npos || space == 0) bad("no label and span");
   SpanCheck check;
   check.label = text.substr(0, space);
-  const std::string span = text.substr(text.find_first_not_of(' ', space));
+  const auto span_at = text.find_first_not_of(' ', space);
+  if (span_at == std::string::npos) bad("no span after the label");
+  const std::string span = text.substr(span_at);
   const auto dash = span.find('-');
   if (dash == std::string::npos) bad("the span needs FROM-TO");
   if (!read_number(std::string_view(span).substr(0, dash), check.from) ||

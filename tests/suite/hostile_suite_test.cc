@@ -64,3 +64,17 @@ TEST_CASE("yaml_error_message_newline_regression: YAML errors stay on one line")
   }
   CHECK(threw);
 }
+
+TEST_CASE("span_check_label_only_regression: a bracket check with a label and no span") {
+  // Found by the CI fuzz smoke (fuzz_suite): "PP " (a label, then only spaces) threw
+  // std::out_of_range from substr, which escaped the loader. It is now the case's own error.
+  const ts::Suite s = ts::load_suite_string(
+      "suite: s\ncases:\n  - {id: a, tree: \"(S (NN x))\", require: \"PP   \"}\n"
+      "  - {id: b, tree: \"(S (NN y))\"}\n",
+      "s.yaml");
+  REQUIRE(s.cases.size() == 2);
+  CHECK(s.cases[0].load_error ==
+        "s.yaml:3:42: expected a bracket as LABEL FROM-TO (e.g. \"PP 6-8\"), found 'PP   ': no "
+        "span after the label");
+  CHECK(s.cases[1].load_error.empty());
+}
