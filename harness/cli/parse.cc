@@ -100,6 +100,12 @@ int run_parse(int argc, char** argv) {
   } catch (const InputError& e) {
     return fail("parse", e.what());
   }
+  if (const std::size_t skipped = grammar->skipped_rules(); skipped > 0) {
+    std::cerr << "treegate parse: warning: " << grammar->source() << ": " << skipped
+              << (skipped == 1 ? " rule" : " rules")
+              << " left out, weight not a positive finite number (first at line "
+              << grammar->first_skipped_line() << "); see treegate lint\n";
+  }
   pcfg::ParseOptions options;
   options.gold_tags = tagged;
   options.kbest = kbest;

@@ -19,7 +19,10 @@ CompiledGrammar::CompiledGrammar(const Grammar& grammar)
   std::vector<Rule> merged;
   std::unordered_map<std::string, std::size_t> seen;
   for (const Rule& rule : grammar.rules) {
-    if (!(rule.weight > 0) || !std::isfinite(rule.weight)) continue;
+    if (!(rule.weight > 0) || !std::isfinite(rule.weight)) {
+      note_skipped(rule);
+      continue;
+    }
     auto [it, fresh] = seen.emplace(format_rule(rule), merged.size());
     if (fresh) {
       merged.push_back(rule);
@@ -43,6 +46,17 @@ CompiledGrammar::CompiledGrammar(const Grammar& grammar)
   finish_binary();
   build_unary_closure(unary_);
   unary_.clear();
+}
+
+void CompiledGrammar::note_skipped(const Rule& rule) {
+  if (skipped_rules_++ == 0) first_skipped_line_ = rule.line;
+  if (rule.rhs.size() == 1 && rule.rhs[0].kind == ItemKind::terminal)
+    skipped_words_.emplace(rule.rhs[0].text, rule.line);
+}
+
+std::size_t CompiledGrammar::skipped_line_of_word(const std::string& word) const {
+  const auto it = skipped_words_.find(word);
+  return it == skipped_words_.end() ? 0 : it->second;
 }
 
 Symbol CompiledGrammar::intern(const std::string& name, std::uint8_t internal) {

@@ -93,12 +93,21 @@ class CompiledGrammar {
   const std::vector<LexEntry>* unknown_class(const std::string& signature) const;
   bool has_unknown_classes() const { return !unknown_.empty(); }
 
+  /// Rules left out because their weight is not a positive finite number (zero, negative,
+  /// nan, inf), and the line of the first of them (0 when none).
+  std::size_t skipped_rules() const { return skipped_rules_; }
+  std::size_t first_skipped_line() const { return first_skipped_line_; }
+  /// Line of the first left-out lexical rule for `word` (0 when none): a word that only such
+  /// rules rewrite is unknown to the parser, and the reason should say why.
+  std::size_t skipped_line_of_word(const std::string& word) const;
+
   /// Log probability of an original rule written "LHS -> ITEM ..." (format_rule), or NaN.
   double rule_logp(const std::string& rule_text) const;
 
  private:
   Symbol intern(const std::string& name, std::uint8_t internal);
   void add_rule(const Rule& rule);
+  void note_skipped(const Rule& rule);
   void add_binary(Symbol lhs, Symbol left, Symbol right, double p);
   void finish_binary();
   void build_unary_closure(const std::vector<std::tuple<Symbol, Symbol, double>>& unary);
@@ -120,6 +129,8 @@ class CompiledGrammar {
   bool unary_cycles_ = false;
   std::unordered_map<std::string, std::vector<LexEntry>> lexicon_, unknown_;
   std::unordered_map<std::string, double> rule_p_;
+  std::size_t skipped_rules_ = 0, first_skipped_line_ = 0;
+  std::unordered_map<std::string, std::size_t> skipped_words_;  // word -> line
   // Staging while building.
   struct Staged {
     Symbol lhs, left, right;

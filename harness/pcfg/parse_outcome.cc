@@ -46,14 +46,21 @@ std::string check_input(const CompiledGrammar& g, const std::vector<std::string>
       continue;
     }
     if (g.lexicon(words[i]) != nullptr) continue;
+    // A word whose only rules have unusable weights is unknown to the parser; say so.
+    const std::size_t skipped = g.skipped_line_of_word(words[i]);
+    const std::string none = skipped == 0
+                                 ? "no rule rewrites it"
+                                 : "no rule with a usable weight rewrites it (the weight at line " +
+                                       std::to_string(skipped) +
+                                       " is not a positive finite number; see treegate lint)";
     if (!g.has_unknown_classes()) {
-      return "unknown word " + word_ref(words, i) +
-             ": no rule rewrites it and the grammar has no unknown-word classes";
+      return "unknown word " + word_ref(words, i) + ": " + none +
+             " and the grammar has no unknown-word classes";
     }
     const std::string sig = word_signature(words[i]);
     if (g.unknown_class(sig) == nullptr) {
-      return "unknown word " + word_ref(words, i) +
-             ": no rule rewrites it nor its class <unk:" + sig + ">";
+      return "unknown word " + word_ref(words, i) + ": " + none + " nor its class <unk:" + sig +
+             ">";
     }
   }
   return "";

@@ -52,7 +52,8 @@ expect_error "weight 1e999, parse" 2 \
 # A rule with a nan weight is never used: the parser says why 'a' has no parse.
 echo a >a.txt
 expect_stderr "weight nan, parse" 0 \
-  "treegate parse: line 1: no_parse: unknown word 'a' (word 1): no rule rewrites it and the grammar has no unknown-word classes" \
+  "treegate parse: warning: w1.pcfg: 1 rule left out, weight not a positive finite number (first at line 2); see treegate lint
+treegate parse: line 1: no_parse: unknown word 'a' (word 1): no rule with a usable weight rewrites it (the weight at line 2 is not a positive finite number; see treegate lint) and the grammar has no unknown-word classes" \
   -- "$TREEGATE" parse --grammar w1.pcfg a.txt
 
 # 10,000 words with the demo grammar: the chart guard refuses the sentence before allocating.

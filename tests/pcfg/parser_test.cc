@@ -210,6 +210,22 @@ TEST_CASE("a stop flag makes a running parse give up at once") {
   CHECK(r.reason == "stopped before the parse was done");
 }
 
+TEST_CASE("rules with unusable weights are left out, counted, and named in the reason") {
+  auto g = compile("@start S\nS -> \"a\" nan\nS -> \"b\" 0.5\nS -> \"c\" -0\nS -> \"d\" 0.5\n");
+  CHECK(g->skipped_rules() == 2);
+  CHECK(g->first_skipped_line() == 2);
+  CHECK(g->skipped_line_of_word("c") == 4);
+  CHECK(g->skipped_line_of_word("b") == 0);
+  Parser parser(g);
+  const ParseResult r = parser.parse({"c"}, nullptr, ParseOptions{});
+  CHECK(r.status == ParseStatus::no_parse);
+  CHECK(r.reason ==
+        "unknown word 'c' (word 1): no rule with a usable weight rewrites it (the weight at line "
+        "4 is not a positive finite number; see treegate lint) and the grammar has no "
+        "unknown-word classes");
+  CHECK(parser.parse({"b"}, nullptr, ParseOptions{}).status == ParseStatus::parsed);
+}
+
 TEST_CASE("compile errors") {
   CHECK_THROWS_WITH_AS(compile("S -> \"a\" 1\n"),
                        "t.pcfg: no @start line: expected '@start SYMBOL' before the rules",
