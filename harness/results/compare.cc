@@ -161,11 +161,10 @@ void Builder::add(const CaseRecord& o, const CaseRecord& n, Comparison& out) {
   };
   c.old_side = side(o, os);
   c.new_side = side(n, ns);
-  const bool was = is_passing(o.outcome), now = is_passing(n.outcome);
   const double d = c.new_side.f1 - c.old_side.f1;
-  if (!was && now) {
+  if (is_fix(o.outcome, n.outcome)) {
     c.transition = Transition::kFixed;
-  } else if (was && !now) {
+  } else if (is_regression(o.outcome, n.outcome)) {
     c.transition = Transition::kBroken;
   } else if (d > 1e-9) {
     c.transition = Transition::kBetter;

@@ -28,6 +28,12 @@ std::optional<Outcome> outcome_from_name(const std::string& name);
 /// Counts as failing for regressions and fixes (kFail, kError).
 inline bool is_failing(Outcome o) { return o == Outcome::kFail || o == Outcome::kError; }
 inline bool is_passing(Outcome o) { return o == Outcome::kPass || o == Outcome::kUnexpectedPass; }
+/// The one definition of a regression and of a fix, shared by the gate and `compare`: a case
+/// marked known_failure in either run (expected failure) is neither.
+inline bool is_regression(Outcome before, Outcome now) {
+  return is_passing(before) && is_failing(now);
+}
+inline bool is_fix(Outcome before, Outcome now) { return is_failing(before) && is_passing(now); }
 
 struct CheckOutcome {
   std::string check;  // "min_f1 90", "require PP 6-8", "forbid NP 4-8"

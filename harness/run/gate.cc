@@ -74,10 +74,9 @@ void compare_cases(const RunResults& run, const RunResults* base, RunSummary& s)
     const CaseRecord& c = run.cases[i];
     if (auto b = by_key.find(key(c)); b != by_key.end()) s.baseline_case_f1[i] = b->second->f1;
     const auto it = before.find(key(c));
-    const bool was_failing = it != before.end() && results::is_failing(it->second);
-    const bool was_passing = it != before.end() && results::is_passing(it->second);
-    if (results::is_failing(c.outcome) && was_passing) s.regressions.push_back({i, c.suite, c.id});
-    if (results::is_passing(c.outcome) && was_failing) s.fixes.push_back({i, c.suite, c.id});
+    if (it == before.end()) continue;
+    if (results::is_regression(it->second, c.outcome)) s.regressions.push_back({i, c.suite, c.id});
+    if (results::is_fix(it->second, c.outcome)) s.fixes.push_back({i, c.suite, c.id});
   }
 }
 

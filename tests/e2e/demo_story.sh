@@ -19,7 +19,7 @@ status() { set +e; "$@" >"$tmp/out.txt" 2>&1; echo $?; set -e; }
 
 [ "$(status "$TREEGATE" run --results v1.jsonl --no-timings)" = 0 ] || { cat "$tmp/out.txt"; fail "v1 without a baseline should pass (only the F1 rules apply; no case is newly failing)"; }
 [ "$(status "$TREEGATE" run --baseline v1.jsonl --results v1.jsonl --no-timings)" = 0 ] || { cat "$tmp/out.txt"; fail "v1 against itself should pass"; }
-[ "$(status "$TREEGATE" run --grammar v2.pcfg --baseline v1.jsonl --results v2.jsonl --no-timings)" = 1 ] || fail "v2 against v1 should fail the gate"
+[ "$(status "$TREEGATE" run --grammar v2.pcfg --baseline v1.jsonl --results v2.jsonl --summary-json v2.summary.json --no-timings)" = 1 ] || fail "v2 against v1 should fail the gate"
 [ "$(status "$TREEGATE" compare v1.jsonl v2.jsonl --format json)" = 1 ] || fail "compare v1 v2 should exit 1"
 /usr/bin/python3 - "$tmp/out.txt" <<'PY' || exit 1
 import json, sys
@@ -27,6 +27,10 @@ d = json.load(open(sys.argv[1]))
 t = d["transitions"]
 print("v1 -> v2 transitions:", t)
 ok = t["fixed"] > 0 and t["broken"] > 0 and t["worse"] + t["better"] + t["changed_same_f1"] > 0
+# compare and the gate share one definition of fixed and broken.
+gate = json.load(open("v2.summary.json"))
+print("v2 against v1, gate:", len(gate["fixes"]), "fixes,", len(gate["regressions"]), "regressions")
+ok = ok and t["fixed"] == len(gate["fixes"]) and t["broken"] == len(gate["regressions"])
 ok = ok and "significance" in d and d["significance"]
 sys.exit(0 if ok else 1)
 PY
