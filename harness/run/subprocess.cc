@@ -3,12 +3,16 @@
 #include <fcntl.h>
 #include <poll.h>
 #include <signal.h>
-#include <spawn.h>
+#include <sys/prctl.h>
+#include <sys/stat.h>
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <pthread.h>
+#include <algorithm>
 #include <cerrno>
 #include <chrono>
+#include <cstdlib>
 #include <cstring>
 
 extern char** environ;
@@ -31,35 +35,87 @@ struct Pipe {
   }
 };
 
-// Spawns `argv` with stdin/stdout/stderr on the pipes, in a new process group, with default
-// signal dispositions and an empty signal mask. Returns the pid or -1 (errno in `error`).
-pid_t spawn(const std::vector<std::string>& argv, Pipe& in, Pipe& out, Pipe& err, int& error) {
-  posix_spawn_file_actions_t actions;
-  posix_spawnattr_t attr;
-  posix_spawn_file_actions_init(&actions);
-  posix_spawnattr_init(&attr);
-  posix_spawn_file_actions_adddup2(&actions, in.fd[0], 0);
-  posix_spawn_file_actions_adddup2(&actions, out.fd[1], 1);
-  posix_spawn_file_actions_adddup2(&actions, err.fd[1], 2);
-  sigset_t none, defaults;
+// The file a command names: itself when it contains a '/', else the first executable regular
+// file of that name on PATH (as a shell or execvp would find it). "" when there is none.
+std::string find_program(const std::string& name) {
+  if (name.find('/') != std::string::npos) return name;
+  const char* env = std::getenv("PATH");
+  const std::string path = env != nullptr && *env != '\0' ? env : "/usr/local/bin:/usr/bin:/bin";
+  std::size_t begin = 0;
+  for (;;) {
+    const std::size_t end = std::min(path.find(':', begin), path.size());
+    const std::string dir = end > begin ? path.substr(begin, end - begin) : ".";
+    const std::string file = dir + "/" + name;
+    struct stat st {};
+    if (::stat(file.c_str(), &st) == 0 && S_ISREG(st.st_mode) && ::access(file.c_str(), X_OK) == 0)
+      return file;
+    if (end == path.size()) return "";
+    begin = end + 1;
+  }
+}
+
+// In the child between fork and exec: only async-signal-safe calls. The child gets its own
+// process group, default signal dispositions, an empty signal mask, and SIGKILL when the
+// thread that started it dies, so a parser never outlives a killed treegate.
+[[noreturn]] void exec_child(const char* program, char* const* args, pid_t parent, Pipe& in,
+                             Pipe& out, Pipe& err, int report) {
+  ::setpgid(0, 0);
+  ::prctl(PR_SET_PDEATHSIG, SIGKILL);
+  if (::getppid() != parent) ::_exit(127);  // treegate died before prctl took effect
+  ::dup2(in.fd[0], 0);
+  ::dup2(out.fd[1], 1);
+  ::dup2(err.fd[1], 2);
+  struct sigaction dfl {};
+  dfl.sa_handler = SIG_DFL;
+  for (int sig : {SIGPIPE, SIGINT, SIGTERM}) ::sigaction(sig, &dfl, nullptr);
+  sigset_t none;
   sigemptyset(&none);
-  sigemptyset(&defaults);
-  sigaddset(&defaults, SIGPIPE);
-  sigaddset(&defaults, SIGINT);
-  sigaddset(&defaults, SIGTERM);
-  posix_spawnattr_setsigmask(&attr, &none);
-  posix_spawnattr_setsigdefault(&attr, &defaults);
-  posix_spawnattr_setpgroup(&attr, 0);
-  posix_spawnattr_setflags(&attr,
-                           POSIX_SPAWN_SETSIGMASK | POSIX_SPAWN_SETSIGDEF | POSIX_SPAWN_SETPGROUP);
+  ::pthread_sigmask(SIG_SETMASK, &none, nullptr);
+  ::execve(program, args, environ);
+  const int e = errno;
+  [[maybe_unused]] const ssize_t k = ::write(report, &e, sizeof e);
+  ::_exit(127);
+}
+
+// Starts `argv` with stdin/stdout/stderr on the pipes (see exec_child). Returns the pid, or -1
+// with errno in `error` (also when exec fails: the child reports it through a pipe).
+pid_t spawn(const std::vector<std::string>& argv, Pipe& in, Pipe& out, Pipe& err, int& error) {
+  const std::string program = find_program(argv[0]);
+  if (program.empty()) {
+    error = ENOENT;
+    return -1;
+  }
   std::vector<char*> args;
   for (const auto& a : argv) args.push_back(const_cast<char*>(a.c_str()));
   args.push_back(nullptr);
-  pid_t pid = -1;
-  error = posix_spawnp(&pid, args[0], &actions, &attr, args.data(), environ);
-  posix_spawn_file_actions_destroy(&actions);
-  posix_spawnattr_destroy(&attr);
-  return error == 0 ? pid : -1;
+  Pipe report;
+  if (!report.open()) {
+    error = errno;
+    return -1;
+  }
+  const pid_t parent = ::getpid();
+  const pid_t pid = ::fork();
+  if (pid < 0) {
+    error = errno;
+    return -1;
+  }
+  if (pid == 0) exec_child(program.c_str(), args.data(), parent, in, out, err, report.fd[1]);
+  ::setpgid(pid, pid);  // also here, so the group exists before anyone signals it
+  report.close_end(1);
+  int e = 0;
+  ssize_t k = 0;
+  do {
+    k = ::read(report.fd[0], &e, sizeof e);
+  } while (k < 0 && errno == EINTR);
+  if (k == static_cast<ssize_t>(sizeof e)) {  // exec failed: reap the child, report why
+    int status = 0;
+    while (::waitpid(pid, &status, 0) < 0 && errno == EINTR) {
+    }
+    error = e;
+    return -1;
+  }
+  error = 0;
+  return pid;
 }
 
 void set_nonblocking(int fd) { ::fcntl(fd, F_SETFL, ::fcntl(fd, F_GETFL) | O_NONBLOCK); }

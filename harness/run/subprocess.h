@@ -1,6 +1,7 @@
-// Runs a program with an argument list (posix_spawnp, never a shell), feeds it stdin, collects
+// Runs a program with an argument list (fork + execve, never a shell), feeds it stdin, collects
 // stdout and a capped part of stderr, with a timeout that restarts whenever a full output
-// line arrives. The child gets its own process group, which is killed on timeout or stop;
+// line arrives. The child gets its own process group, which is killed on timeout or stop, and
+// dies with the calling thread if treegate is killed (parent-death signal);
 // the child is always reaped. Each call is independent; safe to call from many threads.
 #pragma once
 

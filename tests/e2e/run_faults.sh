@@ -98,6 +98,24 @@ done
 "$TREEGATE" report results.jsonl > /dev/null || [ $? = 1 ] || fail "results unreadable"
 ls -a | grep -q '\.tmp-' && echo "note: temp files of killed runs remain: $(ls -a | grep '\.tmp-')"
 
+# SIGKILL while the parser hangs: the parser process dies with treegate (parent-death signal)
+# instead of sleeping on.
+cat > treegate.yaml <<Y
+suites: [suites/]
+parser:
+  command: [./$parser]
+  mode: per-sentence
+  timeout_seconds: 60
+Y
+"$TREEGATE" run --jobs 2 --results killed.jsonl > /dev/null 2>&1 &
+pid=$!
+for _ in $(seq 1 50); do pgrep -f "$parser.*" > /dev/null && break; sleep 0.1; done
+sleep 1  # by now a worker waits on the hanging sentence (case c11, 60 s timeout)
+kill -9 $pid
+wait $pid 2>/dev/null || true
+sleep 0.5
+if pgrep -f "$parser" > /dev/null; then fail "a parser process outlived a SIGKILLed treegate"; fi
+
 # SIGINT: stops within about a second, exit 2, says so, writes nothing.
 cat > treegate.yaml <<Y
 suites: [suites/]
