@@ -124,19 +124,26 @@ parser:
   mode: per-sentence
   timeout_seconds: 30
 Y
+# interrupt_after SECONDS WHAT ARGS...: starts `treegate run ARGS` (stderr to int-err.txt),
+# sends SIGINT after SECONDS, and checks exit code 2 within 1.5 s; sets $ms.
+interrupt_after() {
+  local after=$1 what=$2 pid code start
+  shift 2
+  "$TREEGATE" run "$@" > /dev/null 2> int-err.txt &
+  pid=$!
+  sleep "$after"
+  start=$(date +%s%N)
+  kill -INT $pid
+  set +e
+  wait $pid
+  code=$?
+  set -e
+  ms=$(( ($(date +%s%N) - start) / 1000000 ))
+  [ "$code" = 2 ] || fail "SIGINT $what: exit code $code"
+  [ "$ms" -lt 1500 ] || fail "SIGINT $what took $ms ms"
+}
 rm -f int.jsonl
-"$TREEGATE" run --jobs 2 --results int.jsonl --junit int.xml > /dev/null 2> int-err.txt &
-pid=$!
-sleep 1.5
-start=$(date +%s%N)
-kill -INT $pid
-set +e
-wait $pid
-code=$?
-set -e
-ms=$(( ($(date +%s%N) - start) / 1000000 ))
-[ "$code" = 2 ] || fail "SIGINT exit code $code"
-[ "$ms" -lt 1500 ] || fail "SIGINT took $ms ms"
+interrupt_after 1.5 "during a run" --jobs 2 --results int.jsonl --junit int.xml
 grep -q "interrupted" int-err.txt || fail "no message: $(cat int-err.txt)"
 [ ! -e int.jsonl ] && [ ! -e int.xml ] || fail "files written after SIGINT"
 sleep 0.3
@@ -171,16 +178,5 @@ assert rows["long"]["reason"].startswith(
     "sentence of 3000 words not parsed within the time limit of 0.5 s"), rows["long"]["reason"]
 PY
 sed -i 's/timeout_seconds: 0.5/timeout_seconds: 600/' treegate.yaml
-"$TREEGATE" run --jobs 1 --results slow-int.jsonl > /dev/null 2> slow-int-err.txt &
-pid=$!
-sleep 1.5
-start=$(date +%s%N)
-kill -INT $pid
-set +e
-wait $pid
-code=$?
-set -e
-ms=$(( ($(date +%s%N) - start) / 1000000 ))
-[ "$code" = 2 ] || fail "SIGINT during a built-in parse: exit code $code"
-[ "$ms" -lt 1500 ] || fail "SIGINT during a built-in parse took $ms ms"
+interrupt_after 1.5 "during a built-in parse" --jobs 1 --results slow-int.jsonl
 echo "ok (built-in parser: time limit; SIGINT during a long parse stopped in $ms ms)"
