@@ -37,7 +37,13 @@ struct ErrorClassifier::Work {
   std::vector<Con> side[2];  // 0 gold, 1 test
   std::uint32_t words = 0;
   std::vector<ClassifiedError> errors;
-  std::set<std::tuple<LabelId, std::uint32_t, std::uint32_t>> all[2];  // every bracket
+  // Every bracket as (label, start, end), sorted (a set's answers without a node per bracket).
+  std::vector<std::tuple<LabelId, std::uint32_t, std::uint32_t>> all[2];
+  bool has(int s, LabelId label, Span at) const {
+    return std::binary_search(
+        all[s].begin(), all[s].end(),
+        std::tuple<LabelId, std::uint32_t, std::uint32_t>{label, at.first, at.second});
+  }
   std::map<std::uint32_t, std::vector<std::int32_t>> wrong_by_start[2], wrong_by_end[2];
 
   Span span(int s, std::int32_t i) const {
@@ -210,12 +216,13 @@ SentenceErrors ErrorClassifier::classify(const Tree& gold, const Tree& test,
   for (int s = 0; s < 2; ++s) {
     for (std::size_t i = 0; i < w.side[s].size(); ++i) {
       const Con& c = w.side[s][i];
-      w.all[s].insert({c.label, c.start, c.end});
+      w.all[s].emplace_back(c.label, c.start, c.end);
       if (c.matched) continue;
       w.wrong_by_start[s][c.start].push_back(static_cast<std::int32_t>(i));
       w.wrong_by_end[s][c.end].push_back(static_cast<std::int32_t>(i));
     }
   }
+  for (auto& all : w.all) std::sort(all.begin(), all.end());
   // Base NPs of gold (NP brackets with no NP below): mark every ancestor of an NP once.
   for (std::size_t i = w.side[0].size(); i-- > 0;) {
     const Con& c = w.side[0][i];
@@ -285,8 +292,7 @@ SentenceErrors ErrorClassifier::classify(const Tree& gold, const Tree& test,
             if (c.start == x.second) other = {x.first, c.end};
             if (c.start == x.first && c.end > x.second) other = {x.second, c.end};
             if (c.end == x.second && c.start < x.first) other = {c.start, x.first};
-            if (other.first < other.second &&
-                w.all[1 - s].count({c.label, other.first, other.second})) {
+            if (other.first < other.second && w.has(1 - s, c.label, other)) {
               w.claim(s, j, e);
             }
           }
@@ -318,13 +324,16 @@ SentenceErrors ErrorClassifier::classify(const Tree& gold, const Tree& test,
   }
 
   // 3-6. The rest, bracket by bracket: label, unary, NP-internal, other.
-  std::map<Span, std::vector<std::int32_t>> at_span[2], all_at_span[2];
+  std::map<Span, std::vector<std::int32_t>> at_span[2];
+  std::vector<Span> all_spans[2];  // sorted; only asked whether a span is there
   for (int s = 0; s < 2; ++s) {
+    all_spans[s].reserve(w.side[s].size());
     for (std::size_t i = 0; i < w.side[s].size(); ++i) {
       const auto ci = static_cast<std::int32_t>(i);
-      all_at_span[s][w.span(s, ci)].push_back(ci);
+      all_spans[s].push_back(w.span(s, ci));
       if (w.free_wrong(s, ci)) at_span[s][w.span(s, ci)].push_back(ci);
     }
+    std::sort(all_spans[s].begin(), all_spans[s].end());
   }
   for (auto& [sp, gold_list] : at_span[0]) {
     auto it = at_span[1].find(sp);
@@ -351,7 +360,8 @@ SentenceErrors ErrorClassifier::classify(const Tree& gold, const Tree& test,
       if (!w.free_wrong(s, ci)) continue;
       const Span sp = w.span(s, ci);
       const LabelId label = w.con(s, ci).label;
-      if (sp.second - sp.first == 1 || all_at_span[1 - s].count(sp)) {
+      if (sp.second - sp.first == 1 ||
+          std::binary_search(all_spans[1 - s].begin(), all_spans[1 - s].end(), sp)) {
         w.claim(s, ci, w.open(ErrorKind::kUnary, label, sp));
       } else if (const Span np = base_np_around(sp); np.second > np.first) {
         auto [it, fresh] = np_error.try_emplace(np, w.errors.size());

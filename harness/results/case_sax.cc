@@ -1,8 +1,8 @@
 #include "harness/results/case_sax.h"
 
 #include <cmath>
+#include <iterator>
 #include <nlohmann/json.hpp>
-#include <set>
 #include <type_traits>
 
 namespace treegate::results::detail {
@@ -10,7 +10,7 @@ namespace {
 
 using json = nlohmann::json;
 
-// Keys a case line must have (checked after the line is read).
+// Keys a case line must have (checked after the line is read; at most 32, one bit each).
 const char* const kKeys[] = {"suite",
                              "id",
                              "n",
@@ -36,13 +36,14 @@ const char* const kKeys[] = {"suite",
                              "known_failure",
                              "checks",
                              "seconds"};
+static_assert(std::size(kKeys) <= 32, "CaseSax::seen has one bit per key");
 
 class CaseSax : public nlohmann::json_sax<json> {
  public:
   explicit CaseSax(CaseRecord& c) : c_(c) {}
   std::string problem;
   std::size_t error_col = 0;
-  std::set<std::string> seen;
+  std::uint32_t seen = 0;  // bit i: kKeys[i] was there (no allocation per key)
 
   bool null() override { return scalar_null(); }
   bool boolean(bool v) override {
@@ -83,7 +84,14 @@ class CaseSax : public nlohmann::json_sax<json> {
   }
   bool key(string_t& k) override {
     key_ = k;
-    if (depth_ == 1) seen.insert(k);
+    if (depth_ == 1) {
+      for (std::size_t i = 0; i < std::size(kKeys); ++i) {
+        if (k == kKeys[i]) {
+          seen |= std::uint32_t{1} << i;
+          break;
+        }
+      }
+    }
     return true;
   }
   bool parse_error(std::size_t position, const std::string& last_token,
@@ -219,9 +227,9 @@ std::string read_case_line(std::string_view line, CaseRecord& out, std::size_t& 
     col = sax.error_col ? sax.error_col : 1;
     return sax.problem.empty() ? "expected one JSON object per line" : sax.problem;
   }
-  for (const char* k : kKeys) {
-    if (!sax.seen.count(k))
-      return std::string("expected a results case: key '") + k + "' is missing";
+  for (std::size_t i = 0; i < std::size(kKeys); ++i) {
+    if ((sax.seen & (std::uint32_t{1} << i)) == 0)
+      return std::string("expected a results case: key '") + kKeys[i] + "' is missing";
   }
   return "";
 }
