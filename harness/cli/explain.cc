@@ -53,11 +53,6 @@ int run_explain(int argc, char** argv) {
   }
   try {
     const auto compiled = pcfg::load_compiled_grammar(grammar);
-    if (!compiled->header().transforms.empty()) {
-      return fail("explain", grammar +
-                                 ": the grammar lists @transform lines; explain compares trees "
-                                 "in the grammar's own labels and cannot apply transforms yet");
-    }
     const Tree gold = tree.empty() ? case_tree(ref) : parse_tree(tree, "--tree");
     if (gold.num_words() == 0) return fail("explain", "the gold tree has no words");
     std::cout << pcfg::explanation_text(pcfg::explain_tree(compiled, gold, options));

@@ -11,6 +11,8 @@
 #include <tuple>
 
 #include "evaluator/bracket_io.h"
+#include "harness/pcfg/transforms_spec.h"
+#include "harness/pcfg/transforms_tree.h"
 
 namespace treegate::pcfg {
 namespace {
@@ -62,6 +64,16 @@ std::string draw(const Tree& t, const Tree& other) {
   return out;
 }
 
+// `t` in the grammar's own labels: the header's transforms applied forward (parent
+// annotation, binarization, ...), as the estimator applied them to its treebank. A grammar
+// without transforms takes trees as they are.
+Tree in_grammar_labels(const Tree& t, const CompiledGrammar& grammar) {
+  if (grammar.header().transforms.empty() || t.empty()) return t;
+  EditTree edit = to_edit_tree(t);
+  apply_transforms(edit, from_pairs(grammar.header().transforms, grammar.source()));
+  return to_tree(edit, t.labels());
+}
+
 std::map<std::string, const RuleUse*> by_rule(const TreeScore& s) {
   std::map<std::string, const RuleUse*> out;
   for (const RuleUse& u : s.used) out[u.rule] = &u;
@@ -76,7 +88,9 @@ Explanation explain_tree(const std::shared_ptr<const CompiledGrammar>& grammar, 
   e.gold = gold;
   for (std::string_view w : gold.words()) e.words.emplace_back(w);
   e.kbest = options.kbest;
-  e.gold_score = score_tree(*grammar, gold);
+  // Rules are compared in the grammar's labels; trees are shown in the original ones.
+  const Tree gold_g = in_grammar_labels(gold, *grammar);
+  e.gold_score = score_tree(*grammar, gold_g);
   Parser parser(grammar);
   ParseOptions po;
   po.kbest = options.kbest;
@@ -85,15 +99,16 @@ Explanation explain_tree(const std::shared_ptr<const CompiledGrammar>& grammar, 
   for (std::string_view t : gold.tags()) tags.emplace_back(t);
   e.parse = parser.parse(e.words, options.gold_tags ? &tags : nullptr, po);
   if (e.parse.status != ParseStatus::parsed) return e;
-  const std::string gold_text = to_bracketed(gold);
-  e.gold_is_best = to_bracketed(e.parse.tree) == gold_text;
+  const std::string gold_text = to_bracketed(gold_g);
+  const Tree best_g = in_grammar_labels(e.parse.tree, *grammar);
+  e.gold_is_best = to_bracketed(best_g) == gold_text;
   for (std::size_t k = 0; k < e.parse.kbest.size(); ++k) {
-    if (to_bracketed(e.parse.kbest[k].tree) == gold_text) {
+    if (to_bracketed(in_grammar_labels(e.parse.kbest[k].tree, *grammar)) == gold_text) {
       e.gold_rank = k + 1;
       break;
     }
   }
-  e.best_score = score_tree(*grammar, e.parse.tree);
+  e.best_score = score_tree(*grammar, best_g);
   if (!e.gold_score.derivable) return e;
   e.gap = e.parse.logprob - e.gold_score.logprob;
   const auto g = by_rule(e.gold_score), b = by_rule(e.best_score);

@@ -44,8 +44,9 @@ struct Explanation {
   std::size_t kbest = 0;                    // how many best trees were searched
 };
 
-/// Parses gold's words with `grammar` and explains the result. Trees are in the grammar's own
-/// label set (a grammar whose header lists transforms is refused by the caller).
+/// Parses gold's words with `grammar` and explains the result. `gold` is in the treebank's
+/// labels; when the grammar's header lists transforms, gold and the parser's trees are
+/// transformed forward as the estimator did, so rules are named in the grammar's own labels.
 Explanation explain_tree(const std::shared_ptr<const CompiledGrammar>& grammar, const Tree& gold,
                          const ExplainOptions& options = {});
 

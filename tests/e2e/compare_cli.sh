@@ -49,6 +49,11 @@ grep -q "missing.jsonl" "$tmp/err" || fail "missing file message: $(cat "$tmp/er
 "$TREEGATE" explain --grammar "$demo/v2.pcfg" "$demo/pp-verb.yaml#moor-east-pier" > "$tmp/ex.txt"
 grep -q "^gap: log P(best) - log P(gold) = " "$tmp/ex.txt" || fail "explain gap"
 grep -q "p needed for gold to win" "$tmp/ex.txt" || fail "explain table"
+# The estimated grammar lists @transform lines: rules are named in its labels (NP> is a
+# binarization step), the trees in the treebank's.
+"$TREEGATE" explain --grammar "$demo/estimated.pcfg" "$demo/pp-verb.yaml#moor-east-pier" > "$tmp/ex2.txt" ||
+  fail "explain with a transformed grammar: exit $?"
+grep -q "^  NP> -> JJ NN " "$tmp/ex2.txt" || fail "explain with transforms: $(cat "$tmp/ex2.txt")"
 set +e
 "$TREEGATE" explain --grammar "$demo/v2.pcfg" "$demo/pp-verb.yaml#no-such-case" 2> "$tmp/err"; code=$?
 set -e

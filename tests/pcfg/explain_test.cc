@@ -9,7 +9,9 @@
 
 #include <cmath>
 
+#include <sstream>
 #include "evaluator/bracket_io.h"
+#include "harness/pcfg/estimate.h"
 
 namespace treegate::pcfg {
 namespace {
@@ -91,6 +93,62 @@ TEST_CASE("explain: the drawing marks the brackets the other tree lacks") {
   // Best tree: NP over "stars with ears" is not in gold; gold: VP over "saw stars" is not in best.
   CHECK(text.find("*     NP                       stars with ears") != std::string::npos);
   CHECK(text.find("*     VP                       saw stars\n") != std::string::npos);
+}
+
+}  // namespace
+}  // namespace treegate::pcfg
+
+namespace treegate::pcfg {
+namespace {
+
+// A grammar estimated with transforms (parent annotation, binarization, root wrapper): explain
+// transforms gold forward as the estimator did. Invariants, not data: a training tree is
+// derivable, and no derivation beats the Viterbi tree. (The treebank is test data of our own.)
+TEST_CASE("explain: a grammar with @transform lines (parent annotation, binarization)") {
+  const std::string treebank =
+      "(ROOT (S (NP (DT the) (NN crew)) (VP (VBD lifted) (NP (DT the) (NN crate)) (PP (IN with) "
+      "(NP (DT the) (NN hook)))) (. .)))\n"
+      "(ROOT (S (NP (DT the) (NN crew)) (VP (VBD saw) (NP (NP (DT the) (NN crate)) (PP (IN with) "
+      "(NP (DT the) (NN label))))) (. .)))\n"
+      "(ROOT (S (NP (DT the) (JJ old) (NN crew)) (VP (VBD slept)) (. .)))\n";
+  TransformSpec spec;
+  spec.parent = 2;
+  spec.horizontal = 1;
+  Estimator estimator(spec);
+  std::istringstream in(treebank);
+  BracketReader reader(in, "t.trees");
+  std::vector<Tree> trees;
+  for (Tree t; reader.next(t);) {
+    REQUIRE_FALSE(estimator.add(t));
+    trees.push_back(t);
+  }
+  const auto grammar = std::make_shared<const CompiledGrammar>(
+      read_grammar_string(write_grammar(estimator.grammar()), "est.pcfg"));
+  REQUIRE_FALSE(grammar->header().transforms.empty());
+  for (const Tree& gold : trees) {
+    CAPTURE(to_bracketed(gold));
+    const Explanation e = explain_tree(grammar, gold);
+    REQUIRE(e.parse.status == ParseStatus::parsed);
+    CHECK(e.gold_score.derivable);
+    CHECK(e.gold_score.logprob <= e.parse.logprob + 1e-9);
+    if (e.gold_is_best) {
+      CHECK(e.gap == doctest::Approx(0).epsilon(1e-12));
+      CHECK(e.differences.empty());
+    } else {
+      CHECK(e.gap >= 0);  // 0: a tie (here, the PP on the verb or on its object)
+      // The rule differences account for the whole gap.
+      double shares = 0;
+      for (const RuleDifference& d : e.differences) shares += d.gap_share;
+      CHECK(shares == doctest::Approx(e.gap).epsilon(1e-9));
+    }
+    // Rules are named in the grammar's labels (parent-annotated), trees shown in the original.
+    bool annotated = false;
+    for (const RuleUse& u : e.gold_score.used) annotated |= u.rule.find('^') != std::string::npos;
+    CHECK(annotated);
+    CHECK(to_bracketed(e.gold) == to_bracketed(gold));
+  }
+  // The third tree has no rival: its rules derive nothing else over its words.
+  CHECK(explain_tree(grammar, trees[2]).gold_is_best);
 }
 
 }  // namespace
