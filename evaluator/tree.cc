@@ -57,12 +57,6 @@ std::string_view Tree::label(NodeId id) const {
   return n.is_leaf() ? std::string_view() : labels_->name(n.label);
 }
 
-bool Tree::is_preterminal(NodeId id) const {
-  const Node& n = node(id);
-  return !n.is_leaf() && n.first_child != kNoNode && n.first_child == n.last_child &&
-         node(n.first_child).is_leaf();
-}
-
 std::size_t Tree::num_children(NodeId id) const {
   std::size_t count = 0;
   for (NodeId c = node(id).first_child; c != kNoNode; c = node(c).next_sibling) ++count;

@@ -55,7 +55,11 @@ class Tree {
   LabelId label_id(NodeId id) const { return node(id).label; }
 
   /// A node whose children are exactly one leaf (the node's label is the word's tag).
-  bool is_preterminal(NodeId id) const;
+  bool is_preterminal(NodeId id) const {  // inline: the scorer asks it of every node
+    const Node& n = node(id);
+    return !n.is_leaf() && n.first_child != kNoNode && n.first_child == n.last_child &&
+           node(n.first_child).is_leaf();
+  }
   std::size_t num_children(NodeId id) const;
   /// Tags of the words in yield order (empty label when a word has no tag).
   std::vector<std::string_view> tags() const;

@@ -87,6 +87,7 @@ int run_run(int argc, char** argv) {
       "leave timings out, so two runs compare byte for byte");
   po::variables_map vm;
   if (int code = parse_command_line(argc, argv, usage, opts, {}, vm); code >= 0) return code;
+  catch_interrupts();  // before loading anything: Ctrl-C while suites load stops the run too
   try {
     run::RunRequest req;
     req.config = load_project(o);
@@ -98,7 +99,6 @@ int run_run(int argc, char** argv) {
     if (isatty(STDERR_FILENO)) req.progress = draw_progress;
     results::RunResults baseline;
     if (!o.baseline.empty()) baseline = results::load_results(o.baseline);
-    catch_interrupts();
     bool stopped = false;
     results::RunResults run = run::execute_run(req, stopped);
     if (stopped || interrupted.load()) {

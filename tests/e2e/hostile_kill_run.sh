@@ -4,6 +4,7 @@
 # byte-identical and loadable; Ctrl-C (SIGINT) stops a run within a second, says so, and
 # leaves no results, reports or temp files behind.
 source "$(dirname "$0")/lib/hostile.sh"
+source "$e2e_dir/lib/signals.sh"
 demo="${SOURCE_DIR:-$e2e_dir/../..}/suites/demo"
 copies=${TREEGATE_KILL_COPIES:-300}
 mkdir -p tb out
@@ -54,6 +55,7 @@ rm -rf out2 && mkdir out2
 "${run[@]}" --results out2/results.jsonl --junit out2/junit.xml --summary-json out2/s.json \
   >sigint.out 2>sigint.err &
 pid=$!
+wait_for_handler "$pid" 2 || fail "SIGINT: the run never installed its handler"
 sleep "$(/usr/bin/python3 -c "print(round(min(0.3, $duration / 4), 3))")"  # while parsing
 sent=$(date +%s.%N)
 kill -INT "$pid" 2>/dev/null || fail "SIGINT: the run ended before the signal"

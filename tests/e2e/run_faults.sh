@@ -8,6 +8,7 @@ set -euo pipefail
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
 fail() { echo "FAIL: $*"; exit 1; }
+source "$SOURCE_DIR/tests/e2e/lib/signals.sh"
 parser=fault_parser_$$.py  # a unique name, so the leftover check sees only our processes
 cp "$SOURCE_DIR/tests/e2e/run_data/fake_parser.py" "$tmp/$parser"
 cd "$tmp"
@@ -131,6 +132,7 @@ interrupt_after() {
   shift 2
   "$TREEGATE" run "$@" > /dev/null 2> int-err.txt &
   pid=$!
+  wait_for_handler $pid 2 || fail "SIGINT $what: the run never installed its handler"
   sleep "$after"
   start=$(date +%s%N)
   kill -INT $pid
