@@ -100,12 +100,8 @@ int run_parse(int argc, char** argv) {
   } catch (const InputError& e) {
     return fail("parse", e.what());
   }
-  if (const std::size_t skipped = grammar->skipped_rules(); skipped > 0) {
-    std::cerr << "treegate parse: warning: " << grammar->source() << ": " << skipped
-              << (skipped == 1 ? " rule" : " rules")
-              << " left out, weight not a positive finite number (first at line "
-              << grammar->first_skipped_line() << "); see treegate lint\n";
-  }
+  if (const std::string w = grammar->skipped_rules_warning(); !w.empty())
+    std::cerr << "treegate parse: warning: " << w << "\n";
   pcfg::ParseOptions options;
   options.gold_tags = tagged;
   options.kbest = kbest;

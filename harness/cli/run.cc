@@ -97,6 +97,7 @@ int run_run(int argc, char** argv) {
     req.timings = !o.no_timings;
     req.stop = &interrupted;
     if (isatty(STDERR_FILENO)) req.progress = draw_progress;
+    req.warn = [](const std::string& w) { std::cerr << "treegate run: warning: " << w << "\n"; };
     results::RunResults baseline;
     if (!o.baseline.empty()) baseline = results::load_results(o.baseline);
     bool stopped = false;

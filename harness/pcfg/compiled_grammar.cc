@@ -59,6 +59,14 @@ std::size_t CompiledGrammar::skipped_line_of_word(const std::string& word) const
   return it == skipped_words_.end() ? 0 : it->second;
 }
 
+std::string CompiledGrammar::skipped_rules_warning() const {
+  if (skipped_rules_ == 0) return "";
+  return source_ + ": " + std::to_string(skipped_rules_) +
+         (skipped_rules_ == 1 ? " rule" : " rules") +
+         " left out, weight not a positive finite number (first at line " +
+         std::to_string(first_skipped_line_) + "); see treegate lint";
+}
+
 Symbol CompiledGrammar::intern(const std::string& name, std::uint8_t internal) {
   auto [it, fresh] = ids_.emplace(name, static_cast<Symbol>(names_.size()));
   if (fresh) {

@@ -100,6 +100,8 @@ class CompiledGrammar {
   /// Line of the first left-out lexical rule for `word` (0 when none): a word that only such
   /// rules rewrite is unknown to the parser, and the reason should say why.
   std::size_t skipped_line_of_word(const std::string& word) const;
+  /// "SOURCE: N rules left out, ..." for the user, or "" when no rule was left out.
+  std::string skipped_rules_warning() const;
 
   /// Log probability of an original rule written "LHS -> ITEM ..." (format_rule), or NaN.
   double rule_logp(const std::string& rule_text) const;

@@ -59,6 +59,11 @@ class BuiltinFactory : public ParserFactory {
     return settings_.gold_tags ? "builtin (gold tags)" : "builtin";
   }
   bool wants_tags() const override { return settings_.gold_tags; }
+  std::vector<std::string> warnings() const override {
+    std::string w = grammar_->skipped_rules_warning();
+    if (w.empty()) return {};
+    return {std::move(w)};
+  }
 
  private:
   std::shared_ptr<const pcfg::CompiledGrammar> grammar_;

@@ -88,6 +88,9 @@ std::unique_ptr<ParserFactory> make_parser(const suite::ProjectConfig& config,
 results::RunResults execute_run(const RunRequest& request, bool& interrupted) {
   const std::vector<suite::Suite> suites = load_suites(request.config);
   const auto parser = make_parser(request.config, request.stop);
+  if (request.warn) {
+    for (const std::string& w : parser->warnings()) request.warn(w);
+  }
   std::vector<WorkItem> items;
   for (const auto& item : all_cases(suites)) {
     if (in_shard(item.suite->name, item.item->id, request.shard)) items.push_back(item);

@@ -22,6 +22,7 @@ struct RunRequest {
   bool timings = true;
   const std::atomic<bool>* stop = nullptr;
   std::function<void(std::size_t, std::size_t)> progress;
+  std::function<void(const std::string&)> warn;  // one line each (the parser's warnings)
 };
 
 /// Throws InputError for bad input that stops the run (unreadable suite file, two suites with

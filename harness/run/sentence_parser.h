@@ -47,6 +47,8 @@ class ParserFactory {
   virtual std::size_t batch_size() const { return 1; }
   /// Whether requests should carry the gold tags.
   virtual bool wants_tags() const { return false; }
+  /// Things the user should know before trusting the run (e.g. grammar rules left out).
+  virtual std::vector<std::string> warnings() const { return {}; }
 };
 
 }  // namespace treegate::run

@@ -55,6 +55,12 @@ expect_stderr "weight nan, parse" 0 \
   "treegate parse: warning: w1.pcfg: 1 rule left out, weight not a positive finite number (first at line 2); see treegate lint
 treegate parse: line 1: no_parse: unknown word 'a' (word 1): no rule with a usable weight rewrites it (the weight at line 2 is not a positive finite number; see treegate lint) and the grammar has no unknown-word classes" \
   -- "$TREEGATE" parse --grammar w1.pcfg a.txt
+# `run` says the same once, before its results.
+printf 'suite: w\ncases:\n  - {id: b, tree: "(S b)"}\n' >w.yaml
+"$TREEGATE" run --grammar w1.pcfg --suite w.yaml >run-w.out 2>run-w.err || fail "run with w1.pcfg: exit $?"
+[ "$(cat run-w.err)" = "treegate run: warning: w1.pcfg: 1 rule left out, weight not a positive finite number (first at line 2); see treegate lint" ] ||
+  fail "run with w1.pcfg: stderr '$(cat run-w.err)'"
+echo "ok: weight nan, run warns"
 
 # 10,000 words with the demo grammar: the chart guard refuses the sentence before allocating.
 # (A grammar of a handful of symbols fits such a chart under the cap: the time limit below
