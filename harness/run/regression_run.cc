@@ -1,6 +1,7 @@
 #include "harness/run/regression_run.h"
 
 #include <filesystem>
+#include <future>
 #include <set>
 #include <thread>
 
@@ -86,8 +87,13 @@ std::unique_ptr<ParserFactory> make_parser(const suite::ProjectConfig& config,
 }
 
 results::RunResults execute_run(const RunRequest& request, bool& interrupted) {
+  // The grammar loads (and compiles) on a second thread while the suites are read; a suite
+  // error is still reported first (the grammar thread is then waited for and its result
+  // dropped).
+  auto loading =
+      std::async(std::launch::async, [&] { return make_parser(request.config, request.stop); });
   const std::vector<suite::Suite> suites = load_suites(request.config);
-  const auto parser = make_parser(request.config, request.stop);
+  const std::unique_ptr<ParserFactory> parser = loading.get();
   if (request.warn) {
     for (const std::string& w : parser->warnings()) request.warn(w);
   }

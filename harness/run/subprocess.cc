@@ -118,6 +118,26 @@ pid_t spawn(const std::vector<std::string>& argv, Pipe& in, Pipe& out, Pipe& err
   return pid;
 }
 
+// write() that cannot raise SIGPIPE in a program that has not ignored it: the signal is
+// blocked in this thread for the call, and one raised by it is taken off the pending set.
+// A parser that exits without reading its input then gives EPIPE, not a dead treegate.
+ssize_t write_no_sigpipe(int fd, const char* data, std::size_t size) {
+  sigset_t pipe_only, old;
+  sigemptyset(&pipe_only);
+  sigaddset(&pipe_only, SIGPIPE);
+  ::pthread_sigmask(SIG_BLOCK, &pipe_only, &old);
+  const ssize_t k = ::write(fd, data, size);
+  const int saved = errno;
+  if (k < 0 && saved == EPIPE) {
+    const timespec now{0, 0};
+    while (::sigtimedwait(&pipe_only, nullptr, &now) < 0 && errno == EINTR) {
+    }
+  }
+  ::pthread_sigmask(SIG_SETMASK, &old, nullptr);
+  errno = saved;
+  return k;
+}
+
 void set_nonblocking(int fd) { ::fcntl(fd, F_SETFL, ::fcntl(fd, F_GETFL) | O_NONBLOCK); }
 
 // Reaps `pid`; kills its group first when `kill_first` or when it does not exit in time.
@@ -206,7 +226,7 @@ ProcessResult run_process(const std::vector<std::string>& argv, const std::strin
       if (fds[i].revents == 0) continue;
       const int fd = fds[i].fd;
       if (fd == in.fd[1]) {
-        const ssize_t k = ::write(fd, input.data() + written, input.size() - written);
+        const ssize_t k = write_no_sigpipe(fd, input.data() + written, input.size() - written);
         if (k > 0) written += static_cast<std::size_t>(k);
         if ((k < 0 && errno != EAGAIN && errno != EINTR) || written == input.size())
           in.close_end(1);
