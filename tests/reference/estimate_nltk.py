@@ -6,11 +6,15 @@ a PCFG with nltk.induce_pcfg(Nonterminal(start), productions), i.e. relative fre
 left-hand side. The two rule sets must be equal and every probability equal within 1e-12
 (relative). Usage: estimate_nltk.py TREEGATE WORKDIR TREEBANK...
 """
+import os
 import re
 import subprocess
 import sys
 
-from nltk import Nonterminal, Tree, induce_pcfg
+from nltk import Nonterminal, induce_pcfg
+
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "lib"))
+from treebank_text import read_nltk_trees  # noqa: E402
 
 ITEM = re.compile(r'"((?:[^"\\]|\\.)*)"|(\S+)')
 
@@ -39,21 +43,7 @@ def read_treegate_grammar(path):
     return rules
 
 
-def read_trees(paths):
-    trees = []
-    for path in paths:
-        text = open(path, encoding="utf-8").read()
-        depth, start = 0, None
-        for i, c in enumerate(text):  # split the file into top-level bracketed trees
-            if c == "(":
-                if depth == 0:
-                    start = i
-                depth += 1
-            elif c == ")":
-                depth -= 1
-                if depth == 0:
-                    trees.append(Tree.fromstring(text[start:i + 1]))
-    return trees
+read_trees = read_nltk_trees
 
 
 def main():

@@ -11,30 +11,20 @@ The grammar's unlabeled F1 must beat the baseline's by at least MARGIN points.
 Usage: estimate_trainset.py TREEGATE WORKDIR MAX_SENTENCES TREEBANK...
 """
 import json
+import os
 import subprocess
 import sys
 
 from nltk import Tree
 
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "lib"))
+from treebank_text import read_nltk_trees  # noqa: E402
+
 MAX_WORDS = 25
 MARGIN = 15.0
 
 
-def read_trees(paths):
-    trees = []
-    for path in paths:
-        text = open(path, encoding="utf-8").read()
-        depth, start = 0, None
-        for i, c in enumerate(text):
-            if c == "(":
-                if depth == 0:
-                    start = i
-                depth += 1
-            elif c == ")":
-                depth -= 1
-                if depth == 0:
-                    trees.append(Tree.fromstring(text[start:i + 1]))
-    return trees
+read_trees = read_nltk_trees
 
 
 def one_line(tree):
