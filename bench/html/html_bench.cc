@@ -15,6 +15,7 @@
 #include "harness/report/html_from_results.h"
 #include "harness/report/html_page.h"
 #include "harness/report/html_tree.h"
+#include "harness/results/case_score.h"
 
 using namespace treegate;
 using Clock = std::chrono::steady_clock;
@@ -57,14 +58,7 @@ results::RunResults make_run(const std::vector<Tree>& trees, std::size_t n) {
     c.id = std::to_string(i + 1);
     c.gold = to_bracketed(gold);
     c.predicted = to_bracketed(test);
-    c.score = status_name(s.status);
-    c.gold_brackets = s.gold_brackets;
-    c.test_brackets = s.test_brackets;
-    c.matched = s.matched;
-    c.crossing = s.crossing;
-    c.scored_words = s.words;
-    c.tags_correct = s.tags_correct;
-    c.f1 = f1_pct(s.matched, s.test_brackets, s.gold_brackets);
+    results::set_score(c, s);
     c.outcome = s.exact_match() ? results::Outcome::kPass : results::Outcome::kFail;
     run.cases.push_back(std::move(c));
   }

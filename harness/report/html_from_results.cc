@@ -13,6 +13,7 @@
 #include "evaluator/errors.h"
 #include "evaluator/tally.h"
 #include "harness/report/html_page.h"
+#include "harness/results/case_score.h"
 
 namespace treegate::report::html {
 namespace {
@@ -31,25 +32,6 @@ const char* const kBuckets[] = {
     "40",
     "41+"};
 
-SentenceStatus status_of(const std::string& score) {
-  if (score == "scored") return SentenceStatus::kScored;
-  if (score == "no_parse") return SentenceStatus::kNoParse;
-  if (score == "yield_mismatch") return SentenceStatus::kYieldMismatch;
-  return SentenceStatus::kError;
-}
-
-SentenceScore score_of(const CaseRecord& c) {
-  SentenceScore s;
-  s.status = status_of(c.score);
-  s.gold_brackets = c.gold_brackets;
-  s.test_brackets = c.test_brackets;
-  s.matched = c.matched;
-  s.crossing = c.crossing;
-  s.words = c.scored_words;
-  s.tags_correct = c.tags_correct;
-  return s;
-}
-
 // Tallies of one run: overall, and by suite, construction, length bucket and label.
 struct RunTallies {
   Counts all;
@@ -67,7 +49,7 @@ RunTallies tally(const RunResults& run) {
   Scorer scorer(scheme, labels);
   ErrorClassifier classifier(scorer);
   for (const CaseRecord& c : run.cases) {
-    const SentenceScore s = score_of(c);
+    const SentenceScore s = results::sentence_score(c);
     const bool pass = results::is_passing(c.outcome);
     t.all.add(s, scheme);
     t.suite[c.suite].add(s, scheme);

@@ -1,4 +1,5 @@
 #include "harness/run/gate.h"
+#include "harness/results/case_score.h"
 
 #include <cstdio>
 #include <map>
@@ -15,13 +16,6 @@ std::string num(double v) {
   char buf[32];
   std::snprintf(buf, sizeof buf, "%.2f", v);
   return buf;
-}
-
-SentenceStatus status_of(const std::string& s) {
-  if (s == "scored") return SentenceStatus::kScored;
-  if (s == "no_parse") return SentenceStatus::kNoParse;
-  if (s == "yield_mismatch") return SentenceStatus::kYieldMismatch;
-  return SentenceStatus::kError;
 }
 
 // Groups of a run: per suite (header order) and per construction (by name).
@@ -175,15 +169,7 @@ void decide(const suite::GateSettings& gate, RunSummary& s) {
 }  // namespace
 
 void add_record(Counts& counts, const CaseRecord& r, const Scheme& scheme) {
-  SentenceScore s;
-  s.status = status_of(r.score);
-  s.gold_brackets = r.gold_brackets;
-  s.test_brackets = r.test_brackets;
-  s.matched = r.matched;
-  s.crossing = r.crossing;
-  s.words = r.scored_words;
-  s.tags_correct = r.tags_correct;
-  counts.add(s, scheme);
+  counts.add(results::sentence_score(r), scheme);
 }
 
 RunSummary summarize(const RunResults& run, const RunResults* baseline) {

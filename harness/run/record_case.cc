@@ -5,6 +5,7 @@
 #include "evaluator/bracket_io.h"
 #include "evaluator/parseval.h"
 #include "evaluator/tally.h"
+#include "harness/results/case_score.h"
 #include "harness/run/runner.h"
 
 namespace treegate::run {
@@ -122,14 +123,7 @@ CaseRecord record_case(const WorkItem& item, ParseOutcome outcome, Scorer& score
   r.seconds = options.timings ? outcome.seconds : 0;
   if (outcome.status != ParseStatus::kParsed) outcome.tree.clear();
   const SentenceScore s = scorer.score(c.gold, outcome.tree);
-  r.score = status_name(s.status);
-  r.gold_brackets = s.gold_brackets;
-  r.test_brackets = s.test_brackets;
-  r.matched = s.matched;
-  r.crossing = s.crossing;
-  r.scored_words = s.words;
-  r.tags_correct = s.tags_correct;
-  r.f1 = f1_pct(s.matched, s.test_brackets, s.gold_brackets);
+  results::set_score(r, s);
   if (outcome.status != ParseStatus::kParsed) {
     r.f1 = 0;
     r.outcome = Outcome::kError;

@@ -13,6 +13,7 @@
 #include "harness/report/html_from_results.h"
 #include "harness/report/html_page.h"
 #include "harness/report/html_table.h"
+#include "harness/results/case_score.h"
 
 namespace html = treegate::report::html;
 namespace results = treegate::results;
@@ -38,14 +39,7 @@ results::CaseRecord record(const std::string& suite, const std::string& id, cons
   const auto t = predicted.empty() ? treegate::Tree() : treegate::parse_tree(predicted);
   for (auto w : g.words()) c.words.emplace_back(w);
   const auto s = scorer.score(g, t);
-  c.score = treegate::status_name(s.status);
-  c.gold_brackets = s.gold_brackets;
-  c.test_brackets = s.test_brackets;
-  c.matched = s.matched;
-  c.crossing = s.crossing;
-  c.scored_words = s.words;
-  c.tags_correct = s.tags_correct;
-  c.f1 = treegate::f1_pct(s.matched, s.test_brackets, s.gold_brackets);
+  treegate::results::set_score(c, s);
   return c;
 }
 
