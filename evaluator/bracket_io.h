@@ -25,6 +25,9 @@ class BracketReader {
  public:
   BracketReader(std::istream& in, std::string source, LabelTable& labels = LabelTable::shared(),
                 ReadLimits limits = {});
+  /// Reads from `text` in memory (copied once; no stream buffering).
+  BracketReader(std::string_view text, std::string source,
+                LabelTable& labels = LabelTable::shared(), ReadLimits limits = {});
   ~BracketReader();
   BracketReader(const BracketReader&) = delete;
   BracketReader& operator=(const BracketReader&) = delete;

@@ -36,6 +36,7 @@ struct Open {
 }  // namespace
 
 struct BracketReader::Impl {
+  std::istringstream none;  // the stream of a reader over text in memory: empty
   std::istream& in;
   std::string source;
   LabelTable& labels;
@@ -60,8 +61,16 @@ struct BracketReader::Impl {
 
   Impl(std::istream& i, std::string s, LabelTable& l, ReadLimits lim)
       : in(i), source(std::move(s)), labels(l), limits(lim) {}
+  // Over text in memory: the whole text is the first chunk, and refill() finds the end.
+  Impl(std::string_view text, std::string s, LabelTable& l, ReadLimits lim)
+      : in(none), source(std::move(s)), labels(l), limits(lim), buf(text) {}
 
   bool refill() {
+    if (&in == &none) {  // in memory: all of the text was the first chunk
+      buf.clear();
+      pos = 0;
+      return false;
+    }
     buf.resize(chunk);
     in.read(buf.data(), static_cast<std::streamsize>(chunk));
     chunk = std::min(chunk * 2, kChunk);
@@ -238,6 +247,10 @@ BracketReader::BracketReader(std::istream& in, std::string source, LabelTable& l
                              ReadLimits limits)
     : impl_(std::make_unique<Impl>(in, std::move(source), labels, limits)) {}
 
+BracketReader::BracketReader(std::string_view text, std::string source, LabelTable& labels,
+                             ReadLimits limits)
+    : impl_(std::make_unique<Impl>(text, std::move(source), labels, limits)) {}
+
 BracketReader::~BracketReader() = default;
 
 bool BracketReader::next(Tree& out) { return impl_->read(out); }
@@ -246,9 +259,11 @@ std::size_t BracketReader::tree_line() const { return impl_->tree_line; }
 const std::string& BracketReader::source() const { return impl_->source; }
 
 Tree parse_tree(std::string_view text, const std::string& source, LabelTable& labels) {
-  std::istringstream in{std::string(text)};
-  BracketReader reader(in, source, labels);
+  BracketReader reader(text, source, labels);
   Tree tree(labels);
+  // Each '(' opens at most one constituent and one word below it: one allocation each.
+  const auto opens = static_cast<std::size_t>(std::count(text.begin(), text.end(), '('));
+  tree.reserve(2 * opens, opens, text.size());
   if (!reader.next(tree))
     throw InputError(source, 1, 1, "expected a bracketed tree but found nothing");
   Tree extra(labels);

@@ -8,6 +8,12 @@ void Tree::clear() {
   word_starts_.clear();
 }
 
+void Tree::reserve(std::size_t nodes, std::size_t words, std::size_t word_bytes) {
+  nodes_.reserve(nodes);
+  word_starts_.reserve(words);
+  text_.reserve(word_bytes);
+}
+
 NodeId Tree::add_node(LabelId label, NodeId parent) {
   const auto id = static_cast<NodeId>(nodes_.size());
   Node n;

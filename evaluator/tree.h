@@ -35,6 +35,8 @@ class Tree {
 
   /// Empties the tree and keeps its capacity (for reuse in a reading loop).
   void clear();
+  /// Makes room for `nodes` nodes (words included), `words` words of `word_bytes` bytes.
+  void reserve(std::size_t nodes, std::size_t words, std::size_t word_bytes);
 
   /// Adds an internal node under `parent` (kNoNode for the root, which must come first).
   NodeId add_node(LabelId label, NodeId parent);

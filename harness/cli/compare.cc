@@ -36,9 +36,8 @@ results::RunResults load_side(const std::string& path, const std::string& config
   request.config = suite::load_config(file);
   request.config.grammar = path;
   request.jobs = jobs;
-  bool interrupted = false;
   std::cerr << "treegate compare: running the suites of " << file << " with " << path << "\n";
-  return run::execute_run(request, interrupted);
+  return run::execute_run(request).results;
 }
 
 int run_compare(int argc, char** argv) {

@@ -100,16 +100,18 @@ int run_run(int argc, char** argv) {
     req.warn = [](const std::string& w) { std::cerr << "treegate run: warning: " << w << "\n"; };
     results::RunResults baseline;
     if (!o.baseline.empty()) baseline = results::load_results(o.baseline);
-    bool stopped = false;
-    results::RunResults run = run::execute_run(req, stopped);
-    if (stopped || interrupted.load()) {
+    run::RunOutcome outcome = run::execute_run(req);
+    if (outcome.interrupted || interrupted.load()) {
       std::cerr << "treegate run: interrupted; no results or reports were written\n";
       return kExitBadInput;
     }
     // Reports are rendered from what the results file holds (text that is not UTF-8 is
-    // replaced there), so `run` and a later `report` print the same bytes.
-    const std::string text = results::results_text(run);
-    run = results::parse_results(text, "(this run)");
+    // replaced there; execute_run did so for the cases), so `run` and a later `report`
+    // print the same bytes.
+    results::RunResults& run = outcome.results;
+    const std::string header = results::header_line(run.header);
+    run.header = results::parse_header_line(header, "(this run)", 1);
+    const std::string text = header + "\n" + outcome.case_lines;
     const run::RunSummary summary = run::summarize(run, o.baseline.empty() ? nullptr : &baseline);
     report::ConsoleOptions console;
     console.color = isatty(STDOUT_FILENO) && std::getenv("NO_COLOR") == nullptr;

@@ -6,6 +6,7 @@
 #include <cstdint>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "evaluator/scheme.h"
@@ -100,6 +101,14 @@ std::string results_text(const RunResults& results);
 /// Reads a results file. Throws InputError "file:line:col: what was expected".
 RunResults load_results(const std::string& path);
 RunResults parse_results(const std::string& text, const std::string& source);
+
+/// The lines of the file, without the newline: a JSON object each. Text that is not UTF-8
+/// is replaced (U+FFFD), so reading a line back can differ from what was written.
+std::string header_line(const Header& header);
+std::string case_line(const CaseRecord& c);
+/// Read one line back (`source` and `line_no` are for messages). Throw InputError.
+Header parse_header_line(std::string_view line, const std::string& source, std::size_t line_no);
+CaseRecord parse_case_line(std::string_view line, const std::string& source, std::size_t line_no);
 
 /// fnv1a64 of bytes as 16 hex digits (file hashes in the header).
 std::string fnv1a64_hex(const std::string& bytes);

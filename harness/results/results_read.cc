@@ -6,6 +6,7 @@
 #include <sstream>
 
 #include "evaluator/errors.h"
+#include "evaluator/file_text.h"
 #include "harness/results/case_sax.h"
 #include "harness/results/results.h"
 #include "harness/results/results_json.h"
@@ -48,59 +49,50 @@ Header read_header(const json& j) {
   return h;
 }
 
-void take(json& j, const char* key, std::string& out) {
-  out = std::move(j.at(key).get_ref<std::string&>());
-}
-
-void take(json& j, const char* key, std::vector<std::string>& out) {
-  json& a = j.at(key);
-  if (!a.is_array())
-    throw std::runtime_error(std::string("expected a list of strings at '") + key + "'");
-  out.clear();
-  out.reserve(a.size());
-  for (auto& v : a) out.push_back(std::move(v.get_ref<std::string&>()));
-}
-
-CaseRecord read_case(json& j) {
-  CaseRecord c;
-  take(j, "suite", c.suite);
-  take(j, "id", c.id);
-  j.at("n").get_to(c.n);
-  take(j, "words", c.words);
-  take(j, "constructions", c.constructions);
-  take(j, "gold", c.gold);
-  take(j, "predicted", c.predicted);
-  take(j, "parse", c.parse);
-  take(j, "score", c.score);
-  const std::string outcome = j.at("outcome").get<std::string>();
-  const auto o = outcome_from_name(outcome);
-  if (!o) throw std::runtime_error("unknown outcome '" + outcome + "'");
-  c.outcome = *o;
-  take(j, "reason", c.reason);
-  c.logprob = opt<double>(j, "logprob");
-  c.inside_logprob = opt<double>(j, "inside_logprob");
-  c.parses = opt<double>(j, "parses");
-  j.at("gold_brackets").get_to(c.gold_brackets);
-  j.at("test_brackets").get_to(c.test_brackets);
-  j.at("matched").get_to(c.matched);
-  j.at("crossing").get_to(c.crossing);
-  j.at("scored_words").get_to(c.scored_words);
-  j.at("tags_correct").get_to(c.tags_correct);
-  j.at("f1").get_to(c.f1);
-  j.at("min_f1").get_to(c.min_f1);
-  c.known_failure = opt<std::string>(j, "known_failure");
-  for (const auto& k : j.at("checks")) {
-    c.checks.push_back({k.at("check").get<std::string>(), k.at("passed").get<bool>(),
-                        k.at("detail").get<std::string>()});
-  }
-  j.at("seconds").get_to(c.seconds);
-  return c;
-}
-
 // nlohmann reports a byte offset in the line; turn it into a 1-based column.
 std::size_t column_of(const json::parse_error& e) { return e.byte == 0 ? 1 : e.byte; }
 
 }  // namespace
+
+CaseRecord parse_case_line(std::string_view line, const std::string& source, std::size_t line_no) {
+  CaseRecord c;
+  std::size_t col = 1;
+  std::string problem;
+  try {
+    problem = detail::read_case_line(line, c, col);
+  } catch (const json::exception& e) {
+    problem = std::string("expected a results case: ") + e.what();
+    col = 1;
+  }
+  if (!problem.empty()) throw InputError(source, line_no, col, problem);
+  return c;
+}
+
+Header parse_header_line(std::string_view line, const std::string& source, std::size_t line_no) {
+  json j;
+  try {
+    j = json::parse(line);
+  } catch (const json::parse_error& e) {
+    throw InputError(source, line_no, column_of(e), "expected one JSON object per line");
+  } catch (const json::exception& e) {  // e.g. a number too large for a double
+    throw InputError(source, line_no, 1,
+                     std::string("expected one JSON object per line: ") + e.what());
+  }
+  if (!j.is_object()) throw InputError(source, line_no, 1, "expected a JSON object");
+  if (!j.contains("treegate_results")) {
+    throw InputError(source, line_no, 1,
+                     "expected a results header (key \"treegate_results\"); is this a "
+                     "results file written by `treegate run`?");
+  }
+  try {
+    return read_header(j);
+  } catch (const json::exception& e) {
+    throw InputError(source, line_no, 1, std::string("expected a results header: ") + e.what());
+  } catch (const std::runtime_error& e) {
+    if (dynamic_cast<const InputError*>(&e)) throw;
+    throw InputError(source, line_no, 1, e.what());
+  }
+}
 
 RunResults parse_results(const std::string& text, const std::string& source) {
   RunResults out;
@@ -115,48 +107,10 @@ RunResults parse_results(const std::string& text, const std::string& source) {
     start = end + 1;
     if (line.find_first_not_of(" \t") == std::string_view::npos) continue;
     if (have_header) {
-      CaseRecord c;
-      std::size_t col = 1;
-      std::string problem;
-      try {
-        problem = detail::read_case_line(line, c, col);
-      } catch (const json::exception& e) {
-        problem = std::string("expected a results case: ") + e.what();
-        col = 1;
-      }
-      if (!problem.empty()) throw InputError(source, line_no, col, problem);
-      out.cases.push_back(std::move(c));
-      continue;
-    }
-    json j;
-    try {
-      j = json::parse(line);
-    } catch (const json::parse_error& e) {
-      throw InputError(source, line_no, column_of(e), "expected one JSON object per line");
-    } catch (const json::exception& e) {  // e.g. a number too large for a double
-      throw InputError(source, line_no, 1,
-                       std::string("expected one JSON object per line: ") + e.what());
-    }
-    if (!j.is_object()) throw InputError(source, line_no, 1, "expected a JSON object");
-    try {
-      if (!have_header) {
-        if (!j.contains("treegate_results")) {
-          throw InputError(source, line_no, 1,
-                           "expected a results header (key \"treegate_results\"); is this a "
-                           "results file written by `treegate run`?");
-        }
-        out.header = read_header(j);
-        have_header = true;
-      } else {
-        out.cases.push_back(read_case(j));
-      }
-    } catch (const json::exception& e) {
-      throw InputError(
-          source, line_no, 1,
-          std::string("expected a results ") + (have_header ? "case" : "header") + ": " + e.what());
-    } catch (const std::runtime_error& e) {
-      if (dynamic_cast<const InputError*>(&e)) throw;
-      throw InputError(source, line_no, 1, e.what());
+      out.cases.push_back(parse_case_line(line, source, line_no));
+    } else {
+      out.header = parse_header_line(line, source, line_no);
+      have_header = true;
     }
   }
   if (!have_header)
@@ -165,13 +119,7 @@ RunResults parse_results(const std::string& text, const std::string& source) {
 }
 
 RunResults load_results(const std::string& path) {
-  std::ifstream in(path, std::ios::binary | std::ios::ate);
-  if (!in) throw InputError(path + ": cannot open file for reading");
-  std::string text(static_cast<std::size_t>(in.tellg()), '\0');
-  in.seekg(0);
-  in.read(text.data(), static_cast<std::streamsize>(text.size()));
-  if (!in) throw InputError(path + ": cannot read the file");
-  return parse_results(text, path);
+  return parse_results(read_file_text(path), path);
 }
 
 void sort_canonical(RunResults& results) {

@@ -105,11 +105,17 @@ constexpr auto kReplace = nlohmann::json::error_handler_t::replace;
 
 }  // namespace
 
+std::string header_line(const Header& header) {
+  return header_json(header).dump(-1, ' ', false, kReplace);
+}
+
+std::string case_line(const CaseRecord& c) { return case_json(c).dump(-1, ' ', false, kReplace); }
+
 std::string results_text(const RunResults& results) {
-  std::string out = header_json(results.header).dump(-1, ' ', false, kReplace);
+  std::string out = header_line(results.header);
   out += '\n';
   for (const auto& c : results.cases) {
-    out += case_json(c).dump(-1, ' ', false, kReplace);
+    out += case_line(c);
     out += '\n';
   }
   return out;

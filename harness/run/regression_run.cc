@@ -1,5 +1,6 @@
 #include "harness/run/regression_run.h"
 
+#include <deque>
 #include <filesystem>
 #include <future>
 #include <set>
@@ -20,25 +21,47 @@
 namespace treegate::run {
 namespace {
 
-std::vector<suite::Suite> load_suites(const suite::ProjectConfig& config) {
-  if (config.suites.empty()) {
-    throw InputError("no suites: name them with --suite PATH or `suites:` in treegate.yaml");
-  }
-  suite::SuiteLoadOptions options;
-  options.allow_outside_paths = config.allow_outside_paths;
-  std::vector<suite::Suite> suites;
-  std::set<std::string> names;
-  for (const auto& path : suite::expand_suite_paths(config.suites)) {
-    suites.push_back(suite::load_suite(path, options));
-    if (!names.insert(suites.back().name).second) {
-      throw InputError(path + ": a second suite is named '" + suites.back().name +
-                       "'; suite names must be unique in a run");
+struct LoadStopped {};  // thrown by the case sink when the run is stopped while loading
+
+// Reads the suites into `suites`, handing each case of the shard to `feed` as soon as it is
+// read, and closes the feed (incomplete when loading fails or is stopped). Returns the
+// number of cases handed over.
+std::size_t load_suites(const RunRequest& r, std::deque<suite::Suite>& suites, CaseFeed& feed) {
+  std::size_t fed = 0;
+  try {
+    if (r.config.suites.empty()) {
+      throw InputError("no suites: name them with --suite PATH or `suites:` in treegate.yaml");
     }
+    suite::SuiteLoadOptions options;
+    options.allow_outside_paths = r.config.allow_outside_paths;
+    const auto sink = [&](const suite::Suite& s, const suite::Case& c, std::size_t n) {
+      if (r.stop && r.stop->load()) throw LoadStopped{};
+      if (in_shard(s.name, c.id, r.shard)) {
+        feed.add({&s, &c, n});
+        ++fed;
+      }
+    };
+    std::set<std::string> names;
+    for (const auto& path : suite::expand_suite_paths(r.config.suites)) {
+      suite::Suite& s = suites.emplace_back();
+      suite::load_suite_into(path, options, s, sink);
+      if (!names.insert(s.name).second) {
+        throw InputError(path + ": a second suite is named '" + s.name +
+                         "'; suite names must be unique in a run");
+      }
+    }
+  } catch (const LoadStopped&) {
+    feed.close(false);
+    return fed;
+  } catch (...) {
+    feed.close(false);
+    throw;
   }
-  return suites;
+  feed.close();
+  return fed;
 }
 
-results::Header make_header(const RunRequest& r, const std::vector<suite::Suite>& suites,
+results::Header make_header(const RunRequest& r, const std::deque<suite::Suite>& suites,
                             const ParserFactory& parser) {
   results::Header h;
   h.tool_version = TREEGATE_VERSION;
@@ -86,21 +109,24 @@ std::unique_ptr<ParserFactory> make_parser(const suite::ProjectConfig& config,
 #endif
 }
 
-results::RunResults execute_run(const RunRequest& request, bool& interrupted) {
-  // The grammar loads (and compiles) on a second thread while the suites are read; a suite
-  // error is still reported first (the grammar thread is then waited for and its result
-  // dropped).
-  auto loading =
-      std::async(std::launch::async, [&] { return make_parser(request.config, request.stop); });
-  const std::vector<suite::Suite> suites = load_suites(request.config);
-  const std::unique_ptr<ParserFactory> parser = loading.get();
+RunOutcome execute_run(const RunRequest& request) {
+  // The suites are read on one thread while the grammar loads (and compiles) on this one;
+  // the workers start on the first cases while later ones are still being read. A suite
+  // error is reported first, also when the grammar fails too.
+  std::deque<suite::Suite> suites;
+  CaseFeed feed;
+  auto loading = std::async(std::launch::async, [&] { return load_suites(request, suites, feed); });
+  std::unique_ptr<ParserFactory> parser;
+  try {
+    parser = make_parser(request.config, request.stop);
+  } catch (...) {
+    loading.get();  // throws the suite error, if there is one
+    throw;
+  }
   if (request.warn) {
     for (const std::string& w : parser->warnings()) request.warn(w);
   }
-  std::vector<WorkItem> items;
-  for (const auto& item : all_cases(suites)) {
-    if (in_shard(item.suite->name, item.item->id, request.shard)) items.push_back(item);
-  }
+  RunOutcome out;
   RunOptions options;
   options.jobs = request.jobs ? request.jobs : request.config.jobs;
   if (options.jobs == 0) options.jobs = std::max(1u, std::thread::hardware_concurrency());
@@ -109,11 +135,18 @@ results::RunResults execute_run(const RunRequest& request, bool& interrupted) {
   options.timings = request.timings;
   options.stop = request.stop;
   options.progress = request.progress;
+  std::size_t line_no = 1;  // the header is line 1
+  options.on_record = [&](results::CaseRecord& record) {
+    const std::string line = results::case_line(record);
+    record = results::parse_case_line(line, "(this run)", ++line_no);
+    out.case_lines += line;
+    out.case_lines += '\n';
+  };
   ignore_sigpipe();
-  results::RunResults out;
-  out.header = make_header(request, suites, *parser);
-  out.cases = run_cases(items, *parser, options);
-  interrupted = out.cases.size() != items.size() || (request.stop && request.stop->load());
+  out.results.cases = run_cases(feed, *parser, options);
+  const std::size_t fed = loading.get();  // throws a suite error (the workers have stopped)
+  out.results.header = make_header(request, suites, *parser);
+  out.interrupted = out.results.cases.size() != fed || (request.stop && request.stop->load());
   return out;
 }
 

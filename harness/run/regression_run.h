@@ -25,10 +25,17 @@ struct RunRequest {
   std::function<void(const std::string&)> warn;  // one line each (the parser's warnings)
 };
 
+struct RunOutcome {
+  /// Each case as the results file holds it: written to its line and read back (text that is
+  /// not UTF-8 is replaced there), so reports from this and from the file are the same.
+  results::RunResults results;
+  std::string case_lines;    // the case lines of the results file, each ending in '\n'
+  bool interrupted = false;  // `stop` ended the run early: the results are incomplete
+};
+
 /// Throws InputError for bad input that stops the run (unreadable suite file, two suites with
 /// one name, no suites, no parser). Bad cases do not throw: they are error records.
-/// `interrupted` is set when `stop` ended the run early (the results are then incomplete).
-results::RunResults execute_run(const RunRequest& request, bool& interrupted);
+RunOutcome execute_run(const RunRequest& request);
 
 /// The parser the config asks for (external command, or the built-in PCFG parser).
 std::unique_ptr<ParserFactory> make_parser(const suite::ProjectConfig& config,

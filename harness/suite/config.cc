@@ -5,6 +5,7 @@
 #include <sstream>
 
 #include "evaluator/errors.h"
+#include "evaluator/file_text.h"
 #include "harness/suite/scheme_yaml.h"
 #include "harness/suite/yaml_util.h"
 
@@ -133,11 +134,7 @@ ProjectConfig load_config_string(const std::string& text, const std::string& pat
 }
 
 ProjectConfig load_config(const std::string& path) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path + ": cannot open file for reading");
-  std::ostringstream text;
-  text << in.rdbuf();
-  return load_config_string(text.str(), path);
+  return load_config_string(read_file_text(path), path);
 }
 
 std::string find_config() {

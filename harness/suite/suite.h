@@ -4,6 +4,7 @@
 #pragma once
 
 #include <cstdint>
+#include <deque>
 #include <optional>
 #include <string>
 #include <vector>
@@ -45,7 +46,7 @@ struct Suite {
   std::string hash;  // fnv1a64 of the file bytes, 16 hex digits
   std::vector<std::string> constructions;
   std::optional<double> min_f1;
-  std::vector<Case> cases;  // in file order; treebank cases after the listed ones
+  std::deque<Case> cases;  // in file order; treebank cases after the listed ones
 };
 
 }  // namespace treegate::suite

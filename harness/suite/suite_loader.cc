@@ -10,6 +10,7 @@
 
 #include "evaluator/bracket_io.h"
 #include "evaluator/errors.h"
+#include "evaluator/file_text.h"
 #include "harness/suite/hash.h"
 #include "harness/suite/yaml_util.h"
 
@@ -62,14 +63,16 @@ std::vector<SpanCheck> read_checks(const std::string& file, const YAML::Node& no
   return out;
 }
 
+// The keys of a case, in the order of kCaseKeys.
+enum CaseKey { kId, kTree, kText, kConstructions, kMinF1, kRequire, kForbid, kKnownFailure };
+const std::vector<std::string> kCaseKeys = {"id",     "tree",    "text",   "constructions",
+                                            "min_f1", "require", "forbid", "known_failure"};
+
 // Fills `c` from a case map; throws InputError for the first problem found.
 void read_case(const std::string& file, const YAML::Node& node, Case& c) {
-  yaml::check_keys(
-      file, node,
-      {"id", "tree", "text", "constructions", "min_f1", "require", "forbid", "known_failure"},
-      "a case");
-  if (!node["tree"]) yaml::fail_at(file, node, "expected a `tree:` (the gold tree, bracketed)");
-  const YAML::Node tree_node = node["tree"];
+  const std::vector<YAML::Node> keys = yaml::read_keys(file, node, kCaseKeys, "a case");
+  const YAML::Node& tree_node = keys[kTree];
+  if (!tree_node) yaml::fail_at(file, node, "expected a `tree:` (the gold tree, bracketed)");
   const std::string text = yaml::read_string(file, tree_node);
   try {
     c.gold = parse_tree(text, "tree");
@@ -80,33 +83,38 @@ void read_case(const std::string& file, const YAML::Node& node, Case& c) {
   if (c.gold.num_words() == 0) yaml::fail_at(file, tree_node, "expected a gold tree with words");
   c.words.clear();
   for (auto w : c.gold.words()) c.words.emplace_back(w);
-  if (node["text"]) {
-    const std::string given = yaml::read_string(file, node["text"]);
+  if (keys[kText]) {
+    const std::string given = yaml::read_string(file, keys[kText]);
     std::istringstream in(given);
     std::vector<std::string> words;
     for (std::string w; in >> w;) words.push_back(w);
     if (words != c.words) {
-      yaml::fail_at(file, node["text"],
+      yaml::fail_at(file, keys[kText],
                     "the text " + quote_for_message(given, 80) +
                         " does not match the gold tree's words " +
                         quote_for_message(join_words(c.words), 80));
     }
   }
-  if (node["constructions"])
-    add_tags(c.constructions, yaml::read_strings(file, node["constructions"]));
-  if (node["min_f1"]) c.min_f1 = read_threshold(file, node["min_f1"]);
-  c.require = read_checks(file, node["require"], c.words.size());
-  c.forbid = read_checks(file, node["forbid"], c.words.size());
-  if (node["known_failure"]) {
-    c.known_failure = yaml::read_string(file, node["known_failure"]);
+  if (keys[kConstructions])
+    add_tags(c.constructions, yaml::read_strings(file, keys[kConstructions]));
+  if (keys[kMinF1]) c.min_f1 = read_threshold(file, keys[kMinF1]);
+  c.require = read_checks(file, keys[kRequire], c.words.size());
+  c.forbid = read_checks(file, keys[kForbid], c.words.size());
+  if (keys[kKnownFailure]) {
+    c.known_failure = yaml::read_string(file, keys[kKnownFailure]);
     if (c.known_failure->empty()) {
-      yaml::fail_at(file, node["known_failure"], "expected a reason why the case fails today");
+      yaml::fail_at(file, keys[kKnownFailure], "expected a reason why the case fails today");
     }
   }
 }
 
+void add_case(Suite& suite, Case&& c, const CaseSink& sink) {
+  suite.cases.push_back(std::move(c));
+  if (sink) sink(suite, suite.cases.back(), suite.cases.size());
+}
+
 void read_cases(const std::string& file, const YAML::Node& list, Suite& suite,
-                std::set<std::string>& ids) {
+                std::set<std::string>& ids, const CaseSink& sink) {
   if (!list.IsSequence()) yaml::fail_at(file, list, "expected `cases:` as a list of cases");
   std::size_t index = 0;
   for (const auto& node : list) {
@@ -134,7 +142,7 @@ void read_cases(const std::string& file, const YAML::Node& list, Suite& suite,
         c.load_error = e.what();
       }
     }
-    suite.cases.push_back(std::move(c));
+    add_case(suite, std::move(c), sink);
   }
 }
 
@@ -152,7 +160,7 @@ std::vector<std::string> glob_files(const std::string& pattern) {
 }
 
 void read_treebank_file(const std::string& path, const std::vector<std::string>& tags, Suite& suite,
-                        std::set<std::string>& ids) {
+                        std::set<std::string>& ids, const CaseSink& sink) {
   suite.hash += hash_file(path);  // combined with the suite text's hash by the caller
   std::ifstream in(path, std::ios::binary);
   if (!in) throw InputError(path + ": cannot open file for reading");
@@ -178,12 +186,13 @@ void read_treebank_file(const std::string& path, const std::vector<std::string>&
                      "' (two treebank files with the same name?)";
       c.id += " (duplicate from " + path + ")";
     }
-    suite.cases.push_back(std::move(c));
+    add_case(suite, std::move(c), sink);
   }
 }
 
 void read_treebanks(const std::string& file, const YAML::Node& list,
-                    const SuiteLoadOptions& options, Suite& suite, std::set<std::string>& ids) {
+                    const SuiteLoadOptions& options, Suite& suite, std::set<std::string>& ids,
+                    const CaseSink& sink) {
   if (!list.IsSequence())
     yaml::fail_at(file, list, "expected `treebank:` as a list of {files: GLOB}");
   const std::string folder = fs::path(file).parent_path().string();
@@ -203,7 +212,7 @@ void read_treebanks(const std::string& file, const YAML::Node& list,
         pattern.starts_with('/') || folder.empty() ? pattern : folder + "/" + pattern;
     const auto files = glob_files(full);
     if (files.empty()) yaml::fail_at(file, item["files"], "no file matches '" + pattern + "'");
-    for (const auto& f : files) read_treebank_file(f, tags, suite, ids);
+    for (const auto& f : files) read_treebank_file(f, tags, suite, ids, sink);
   }
 }
 
@@ -217,14 +226,15 @@ bool leaves_folder(const std::string& pattern) {
   return false;
 }
 
-Suite load_suite_string(const std::string& text, const std::string& path,
-                        const SuiteLoadOptions& options) {
+namespace {
+
+void read_suite(const std::string& text, const std::string& path, const SuiteLoadOptions& options,
+                Suite& suite, const CaseSink& sink) {
   const YAML::Node root = yaml::load_string(text, path);
   if (!root.IsMap())
     yaml::fail_at(path, root, "expected a suite: a map with `suite:` and `cases:`");
   yaml::check_keys(path, root, {"suite", "about", "constructions", "min_f1", "cases", "treebank"},
                    "a suite");
-  Suite suite;
   suite.file = path;
   if (!root["suite"]) yaml::fail_at(path, root, "expected `suite:` (the suite's name)");
   suite.name = yaml::read_string(path, root["suite"]);
@@ -239,8 +249,8 @@ Suite load_suite_string(const std::string& text, const std::string& path,
     yaml::fail_at(path, root, "expected `cases:` or `treebank:` (a suite needs cases)");
   }
   std::set<std::string> ids;
-  if (root["cases"]) read_cases(path, root["cases"], suite, ids);
-  if (root["treebank"]) read_treebanks(path, root["treebank"], options, suite, ids);
+  if (root["cases"]) read_cases(path, root["cases"], suite, ids, sink);
+  if (root["treebank"]) read_treebanks(path, root["treebank"], options, suite, ids, sink);
   if (suite.cases.empty()) {  // an empty suite would pass any gate unnoticed
     yaml::fail_at(path,
                   root["cases"]      ? root["cases"]
@@ -249,15 +259,24 @@ Suite load_suite_string(const std::string& text, const std::string& path,
                   "expected at least one case, found none (an empty suite tests nothing)");
   }
   suite.hash = fnv1a64_hex(text + suite.hash);  // the suite text and its treebank files
+}
+
+}  // namespace
+
+Suite load_suite_string(const std::string& text, const std::string& path,
+                        const SuiteLoadOptions& options) {
+  Suite suite;
+  read_suite(text, path, options, suite, nullptr);
   return suite;
 }
 
 Suite load_suite(const std::string& path, const SuiteLoadOptions& options) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path + ": cannot open file for reading");
-  std::ostringstream text;
-  text << in.rdbuf();
-  return load_suite_string(text.str(), path, options);
+  return load_suite_string(read_file_text(path), path, options);
+}
+
+void load_suite_into(const std::string& path, const SuiteLoadOptions& options, Suite& out,
+                     const CaseSink& sink) {
+  read_suite(read_file_text(path), path, options, out, sink);
 }
 
 std::vector<std::string> expand_suite_paths(const std::vector<std::string>& patterns) {

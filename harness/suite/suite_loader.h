@@ -3,6 +3,7 @@
 // so the other cases still run. Stateless functions; safe to call from any thread.
 #pragma once
 
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -18,6 +19,14 @@ struct SuiteLoadOptions {
 Suite load_suite(const std::string& path, const SuiteLoadOptions& options = {});
 Suite load_suite_string(const std::string& text, const std::string& path,
                         const SuiteLoadOptions& options = {});
+
+/// Called with each case as soon as it is read (`n`: its 1-based position in the suite),
+/// while the rest of the suite is still being read; the suite's name, tags and threshold are
+/// set by then, and the case stays at its address (Suite::cases is a deque).
+using CaseSink = std::function<void(const Suite& suite, const Case& c, std::size_t n)>;
+/// Reads the suite file at `path` into `out` (which must be empty), calling `sink` per case.
+void load_suite_into(const std::string& path, const SuiteLoadOptions& options, Suite& out,
+                     const CaseSink& sink);
 
 /// Expands suite arguments: a file is kept, a folder gives its *.yaml and *.yml files (sorted,
 /// not recursive), anything else is a glob. A pattern that matches nothing is an InputError.

@@ -6,6 +6,7 @@
 #include <sstream>
 
 #include "evaluator/errors.h"
+#include "evaluator/file_text.h"
 
 namespace treegate::yaml {
 namespace {
@@ -49,13 +50,7 @@ YAML::Node load_string(const std::string& text, const std::string& source) {
   }
 }
 
-YAML::Node load_file(const std::string& path) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path + ": cannot open file for reading");
-  std::ostringstream text;
-  text << in.rdbuf();
-  return load_string(text.str(), path);
-}
+YAML::Node load_file(const std::string& path) { return load_string(read_file_text(path), path); }
 
 void fail_at(const std::string& file, const YAML::Node& node, const std::string& message) {
   const YAML::Mark mark = node.Mark();
@@ -77,25 +72,44 @@ std::string nearest(const std::string& key, const std::vector<std::string>& know
   return best;
 }
 
-void check_keys(const std::string& file, const YAML::Node& node,
-                const std::vector<std::string>& known, const std::string& what) {
+namespace {
+
+[[noreturn]] void fail_unknown_key(const std::string& file, const YAML::Node& key,
+                                   const std::vector<std::string>& known, const std::string& what) {
+  std::string message = "unknown key '" + key.Scalar() + "' in " + what;
+  const std::string near = nearest(key.Scalar(), known);
+  if (!near.empty()) {
+    message += "; did you mean '" + near + "'?";
+  } else {
+    std::string all;
+    for (const auto& k : known) all += (all.empty() ? "" : ", ") + k;
+    message += " (known keys: " + all + ")";
+  }
+  fail_at(file, key, message);
+}
+
+}  // namespace
+
+std::vector<YAML::Node> read_keys(const std::string& file, const YAML::Node& node,
+                                  const std::vector<std::string>& known, const std::string& what) {
   if (!node.IsMap())
     fail_at(file, node, "expected " + what + " as a map of keys, found " + kind_of(node));
+  const YAML::Node absent(YAML::NodeType::Undefined);  // tests false, like node["absent-key"]
+  std::vector<YAML::Node> values(known.size(), absent);
   for (const auto& kv : node) {
     if (!kv.first.IsScalar()) fail_at(file, kv.first, "expected a key name in " + what);
-    const std::string key = kv.first.Scalar();
-    if (std::find(known.begin(), known.end(), key) != known.end()) continue;
-    std::string message = "unknown key '" + key + "' in " + what;
-    const std::string near = nearest(key, known);
-    if (!near.empty()) {
-      message += "; did you mean '" + near + "'?";
-    } else {
-      std::string all;
-      for (const auto& k : known) all += (all.empty() ? "" : ", ") + k;
-      message += " (known keys: " + all + ")";
-    }
-    fail_at(file, kv.first, message);
+    const std::string& key = kv.first.Scalar();
+    const auto at = std::find(known.begin(), known.end(), key);
+    if (at == known.end()) fail_unknown_key(file, kv.first, known, what);
+    values[static_cast<std::size_t>(at - known.begin())].reset(
+        kv.second);  // rebinds; `=` would assign into it
   }
+  return values;
+}
+
+void check_keys(const std::string& file, const YAML::Node& node,
+                const std::vector<std::string>& known, const std::string& what) {
+  read_keys(file, node, known, what);
 }
 
 bool read_bool(const std::string& file, const YAML::Node& node) {

@@ -25,6 +25,12 @@ std::string nearest(const std::string& key, const std::vector<std::string>& know
 void check_keys(const std::string& file, const YAML::Node& node,
                 const std::vector<std::string>& known, const std::string& what);
 
+/// check_keys, and in the same pass the value of each known key: element i is the value of
+/// known[i], an undefined node when the key is absent. (Looking keys up one by one costs a
+/// scan of the map and a string conversion per key each time.)
+std::vector<YAML::Node> read_keys(const std::string& file, const YAML::Node& node,
+                                  const std::vector<std::string>& known, const std::string& what);
+
 bool read_bool(const std::string& file, const YAML::Node& node);
 long long read_int(const std::string& file, const YAML::Node& node, long long min, long long max);
 double read_number(const std::string& file, const YAML::Node& node);

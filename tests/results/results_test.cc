@@ -64,6 +64,27 @@ TEST_CASE("results: text round-trips through parse_results") {
   CHECK(std::count(text.begin(), text.end(), '\n') == 3);
 }
 
+TEST_CASE("results: a case line read back replaces text that is not UTF-8") {
+  tr::CaseRecord c;
+  c.suite = "s";
+  c.id = "bad\xff";
+  c.n = 1;
+  c.words = {"caf\xc3\xa9", "x\xc3"};
+  c.f1 = 2.0 / 3.0;
+  c.logprob = -1e-300;
+  const std::string line = tr::case_line(c);
+  CHECK(line.find('\n') == std::string::npos);
+  const tr::CaseRecord back = tr::parse_case_line(line, "r.jsonl", 7);
+  CHECK(back.id == "bad\xef\xbf\xbd");  // U+FFFD
+  CHECK(back.words == std::vector<std::string>{"caf\xc3\xa9", "x\xef\xbf\xbd"});
+  CHECK(back.f1 == c.f1);  // numbers come back exactly
+  CHECK(back.logprob == c.logprob);
+  CHECK_THROWS_WITH(tr::parse_case_line("{\"suite\": 1}", "r.jsonl", 7),
+                    doctest::Contains("r.jsonl:7:"));
+  CHECK_THROWS_WITH(tr::parse_header_line("{}", "r.jsonl", 1),
+                    doctest::Contains("r.jsonl:1:1: expected a results header"));
+}
+
 TEST_CASE("results: bad lines name file:line:col") {
   const std::string header = tr::results_text(tr::RunResults{});
   try {

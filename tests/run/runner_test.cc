@@ -2,7 +2,9 @@
 
 #include <doctest/doctest.h>
 
+#include <chrono>
 #include <map>
+#include <thread>
 
 #include "evaluator/bracket_io.h"
 #include "harness/run/external_parser.h"
@@ -133,6 +135,60 @@ TEST_CASE("runner: the same bytes for any number of workers") {
   const std::string one = res::results_text(run_with(parser, 1, suite));
   CHECK(res::results_text(run_with(parser, 2, suite)) == one);
   CHECK(res::results_text(run_with(parser, 7, suite)) == one);
+}
+
+TEST_CASE("runner: cases fed while the run goes on all run, and reach on_record in order") {
+  std::string text = "suite: fed\ncases:\n";
+  std::map<std::string, std::string> t;
+  for (int i = 0; i < 60; ++i) {
+    const std::string w = "w" + std::to_string(i);
+    text += "  - {id: c" + std::to_string(i) + ", tree: \"(S (NN " + w + "))\"}\n";
+    if (i % 4) t[w] = "(S (NN " + w + "))";
+  }
+  const auto suite = treegate::suite::load_suite_string(text, "fed.yaml");
+  const TableFactory parser(t);  // batches of 3
+  tr::RunOptions o;
+  o.jobs = 2;
+  o.timings = false;
+  std::vector<std::string> handed;
+  o.on_record = [&](res::CaseRecord& r) { handed.push_back(r.id); };
+  tr::CaseFeed feed;
+  std::thread loader([&] {  // a slow loader: the workers wait for cases, then for a full batch
+    for (std::size_t i = 0; i < suite.cases.size(); ++i) {
+      feed.add({&suite, &suite.cases[i], i + 1});
+      std::this_thread::sleep_for(std::chrono::milliseconds(1));
+    }
+    feed.close();
+  });
+  const auto records = tr::run_cases(feed, parser, o);
+  loader.join();
+  REQUIRE(records.size() == 60);
+  REQUIRE(handed.size() == 60);
+  for (std::size_t i = 0; i < 60; ++i) {
+    CHECK(records[i].id == "c" + std::to_string(i));
+    CHECK(handed[i] == records[i].id);
+  }
+  CHECK(records[0].outcome == res::Outcome::kError);  // c0 is not in the table
+  CHECK(records[1].outcome == res::Outcome::kPass);
+  // The same records as from a list known beforehand.
+  o.on_record = nullptr;
+  res::RunResults streamed, listed;
+  streamed.cases = records;
+  std::vector<treegate::suite::Suite> suites{suite};
+  listed.cases = tr::run_cases(tr::all_cases(suites), parser, o);
+  CHECK(res::results_text(streamed) == res::results_text(listed));
+}
+
+TEST_CASE("runner: a feed closed incomplete (loading failed) ends the run early") {
+  const auto suite = treegate::suite::load_suite_string(kSuite, "s.yaml");
+  const TableFactory parser(table());
+  tr::RunOptions o;
+  o.jobs = 2;
+  tr::CaseFeed feed;
+  feed.add({&suite, &suite.cases[0], 1});
+  feed.close(false);
+  const auto records = tr::run_cases(feed, parser, o);  // returns: no worker waits for more
+  CHECK(records.size() <= 1);
 }
 
 TEST_CASE("gate: regressions, fixes and the rule that failed") {

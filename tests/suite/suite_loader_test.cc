@@ -103,6 +103,34 @@ TEST_CASE("suite loader: treebank cases get <stem>:<n> ids and bad trees stay er
   fs::remove_all(dir);
 }
 
+TEST_CASE("suite loader: each case goes to the sink as it is read, and stays where it is") {
+  namespace fs = std::filesystem;
+  const auto dir = fs::temp_directory_path() / "tg_suite_sink";
+  fs::remove_all(dir);
+  fs::create_directories(dir / "held");
+  std::ofstream(dir / "held" / "part.trees") << "(S (NN c))\n(S (NN d))\n(S (NN e))\n";
+  std::ofstream(dir / "s.yaml") << "suite: mixed\nconstructions: [t]\ncases:\n"
+                                   "  - {id: a, tree: \"(S (NN a))\"}\n"
+                                   "  - {id: b, tree: \"(S (NN b))\"}\n"
+                                   "treebank:\n  - files: held/*.trees\n";
+  ts::Suite s;
+  std::vector<const ts::Case*> seen;
+  std::vector<std::size_t> positions;
+  ts::load_suite_into((dir / "s.yaml").string(), {}, s,
+                      [&](const ts::Suite& suite, const ts::Case& c, std::size_t n) {
+                        CHECK(suite.name == "mixed");  // set before the first case
+                        CHECK(suite.constructions == std::vector<std::string>{"t"});
+                        seen.push_back(&c);
+                        positions.push_back(n);
+                      });
+  REQUIRE(s.cases.size() == 5);
+  CHECK(positions == std::vector<std::size_t>{1, 2, 3, 4, 5});
+  for (std::size_t i = 0; i < 5; ++i) CHECK(seen[i] == &s.cases[i]);  // no case moved
+  CHECK(s.cases[4].id == "part:3");
+  CHECK(s.hash == ts::load_suite((dir / "s.yaml").string()).hash);
+  fs::remove_all(dir);
+}
+
 TEST_CASE("config: keys, paths and errors") {
   const ts::ProjectConfig c = ts::load_config_string(
       "grammar: g.pcfg\nsuites: [suites/]\njobs: 2\nparser:\n  command: [./p, --fast]\n"
