@@ -1,6 +1,6 @@
-// The worker pool: workers claim batches of consecutive cases from the feed and write each
-// record into the case's slot, so the order of the output never depends on timing. The
-// calling thread hands the finished records on in order.
+// The worker pool: workers claim batches of consecutive cases from the feed and leave each
+// parser outcome in the case's slot; the calling thread scores the slots in order, so the
+// order of the output never depends on timing, and hands each record on.
 #include "harness/run/runner.h"
 
 #include <chrono>
@@ -25,8 +25,9 @@ struct CaseFeed::State {
   struct Slot {
     explicit Slot(const WorkItem& i) : item(i) {}
     WorkItem item;
-    results::CaseRecord record;
-    std::atomic<bool> filled{false};  // set (release) after `record` is written
+    ParseOutcome outcome;             // from a worker
+    std::atomic<bool> filled{false};  // set (release) after `outcome` is written
+    results::CaseRecord record;       // from the calling thread
   };
   std::mutex mutex;  // guards the fields below (a slot's contents are its claimer's)
   std::condition_variable changed;
@@ -97,7 +98,6 @@ std::vector<Slot*> claim(Shared& sh) {
 
 void work_batches(Shared& sh) {
   std::unique_ptr<SentenceParser> parser = sh.parser.make();
-  Scorer scorer(sh.options.scheme);
   std::vector<std::vector<std::string>> tags;
   std::vector<ParseRequest> requests;
   std::vector<Slot*> parsed;
@@ -111,7 +111,6 @@ void work_batches(Shared& sh) {
       Slot& slot = *batch[i];
       const suite::Case& c = *slot.item.item;
       if (!c.load_error.empty()) {
-        slot.record = record_case(slot.item, ParseOutcome(), scorer, sh.options);
         slot.filled.store(true, std::memory_order_release);
         continue;
       }
@@ -127,8 +126,7 @@ void work_batches(Shared& sh) {
       auto outcomes = parser->parse_batch(requests);
       if (stopped(sh.options)) return;
       for (std::size_t k = 0; k < parsed.size(); ++k) {
-        parsed[k]->record =
-            record_case(parsed[k]->item, std::move(outcomes[k]), scorer, sh.options);
+        parsed[k]->outcome = std::move(outcomes[k]);
         parsed[k]->filled.store(true, std::memory_order_release);
       }
     }
@@ -169,8 +167,10 @@ std::vector<results::CaseRecord> run_cases(CaseFeed& feed, const ParserFactory& 
     if (options.progress && d != shown) options.progress(d, total);
     shown = d;
   };
-  auto hand_over = [&] {  // the records finished so far, in order
+  Scorer scorer(options.scheme);
+  auto hand_over = [&] {  // scores and checks the cases parsed so far, in order
     while (Slot* slot = filled_slot(f, handed)) {
+      slot->record = record_case(slot->item, std::move(slot->outcome), scorer, options);
       if (options.on_record) options.on_record(slot->record);
       ++handed;
     }
@@ -188,9 +188,7 @@ std::vector<results::CaseRecord> run_cases(CaseFeed& feed, const ParserFactory& 
   std::vector<results::CaseRecord> out;
   const std::lock_guard<std::mutex> lock(f.mutex);
   out.reserve(f.slots.size());
-  for (Slot& slot : f.slots) {
-    if (slot.filled.load()) out.push_back(std::move(slot.record));
-  }
+  for (std::size_t i = 0; i < handed; ++i) out.push_back(std::move(f.slots[i].record));
   return out;
 }
 

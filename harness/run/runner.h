@@ -1,7 +1,7 @@
-// The runner: parses every case with a pool of worker threads (one SentenceParser and one
-// Scorer per worker), scores it, applies its checks and returns one CaseRecord per case in
-// input order, so the output does not depend on the number of workers. The calling thread
-// hands finished records, in order, to an optional callback meanwhile.
+// The runner: parses every case with a pool of worker threads (one SentenceParser per
+// worker); the calling thread meanwhile scores the parsed cases in input order, applies their
+// checks and hands each CaseRecord to an optional callback, so the output does not depend on
+// the number of workers.
 #pragma once
 
 #include <atomic>
@@ -30,7 +30,7 @@ struct RunOptions {
   const std::atomic<bool>* stop = nullptr;  // set: workers finish their sentence and stop
   std::function<void(std::size_t done, std::size_t total)> progress;  // called on this thread
   // Called on this thread for each record, in input order, as soon as it and all before it
-  // are done: the caller's bookkeeping runs while later cases are still being parsed.
+  // are parsed and scored: the caller's bookkeeping runs while later cases are being parsed.
   std::function<void(results::CaseRecord&)> on_record;
 };
 
