@@ -7,14 +7,20 @@
 
 namespace treegate {
 
-std::string read_file_text(const std::string& path) {
+std::ifstream open_input_file(const std::string& path) {
   std::error_code ec;
   if (std::filesystem::is_directory(path, ec)) {
     throw InputError(path + ": is a folder; expected a file");
   }
   std::ifstream in(path, std::ios::binary);
   if (!in) throw InputError(path + ": cannot open file for reading");
+  return in;
+}
+
+std::string read_file_text(const std::string& path) {
+  std::ifstream in = open_input_file(path);
   std::string text;
+  std::error_code ec;
   const auto size = std::filesystem::file_size(path, ec);  // fails for pipes: then grow
   if (!ec) text.reserve(static_cast<std::size_t>(size));
   char chunk[1 << 16];

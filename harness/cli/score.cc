@@ -3,6 +3,7 @@
 #include <iostream>
 
 #include "evaluator/errors.h"
+#include "evaluator/file_text.h"
 #include "evaluator/score_streams.h"
 #include "harness/cli/command.h"
 #include "harness/report/score_report.h"
@@ -32,9 +33,7 @@ int run_score(int argc, char** argv) {
     return fail("score", "--format must be text or json, not '" + format + "'");
   try {
     const Scheme scheme = scheme_file.empty() ? Scheme{} : load_scheme_file(scheme_file);
-    std::ifstream g(gold, std::ios::binary), t(test, std::ios::binary);
-    if (!g) return fail("score", gold + ": cannot open file for reading");
-    if (!t) return fail("score", test + ": cannot open file for reading");
+    std::ifstream g = open_input_file(gold), t = open_input_file(test);
     std::vector<report::ScoredSentence> sentences;
     // Keep every sentence only when it is listed; otherwise only the errors (flat memory).
     const bool list_all = format == "json" || vm.count("per-sentence") > 0;

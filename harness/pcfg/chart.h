@@ -7,12 +7,38 @@
 
 #include <cstdint>
 #include <memory>
+#include <utility>
 #include <vector>
 
 #include "evaluator/tree.h"
 #include "harness/pcfg/compiled_grammar.h"
 
 namespace treegate::pcfg {
+
+/// An allocator whose resize() leaves new elements of trivial types uninitialized: the
+/// per-cell arrays of a long sentence can be gigabytes, and zero-filling them up front took
+/// seconds before the first cell (and the time limit) was reached. Every cell's values are
+/// written when the cell is closed, before anything reads them.
+template <class T>
+struct UninitializedAllocator : std::allocator<T> {
+  template <class U>
+  struct rebind {
+    using other = UninitializedAllocator<U>;
+  };
+  UninitializedAllocator() = default;
+  template <class U>
+  explicit UninitializedAllocator(const UninitializedAllocator<U>&) noexcept {}
+  template <class U>
+  void construct(U* p) noexcept {
+    ::new (static_cast<void*>(p)) U;  // default-initialization: no zeroing
+  }
+  template <class U, class... Args>
+  void construct(U* p, Args&&... args) {
+    ::new (static_cast<void*>(p)) U(std::forward<Args>(args)...);
+  }
+};
+template <class T>
+using CellArray = std::vector<T, UninitializedAllocator<T>>;
 
 inline constexpr std::uint32_t kLexical = 0xffffffffu;  // Back::rule of a word's entry
 inline constexpr std::uint32_t kNotPre = 0xfffffffeu;   // present only through a unary chain
@@ -39,10 +65,10 @@ struct Chart {
   const CompiledGrammar* grammar = nullptr;
   // Per cell, over the grammar's right ids (symbols that are right children): presence bits and
   // the index of the entry; rewritten whole when the cell is closed, so never reset.
-  std::vector<std::uint64_t> right_bits;
-  std::vector<std::uint32_t> right_slot;
-  std::vector<double> scale;  // per cell: log of the inside scale factor
-  std::vector<std::uint32_t> list_begin, list_end;
+  CellArray<std::uint64_t> right_bits;
+  CellArray<std::uint32_t> right_slot;
+  CellArray<double> scale;  // per cell: log of the inside scale factor
+  CellArray<std::uint32_t> list_begin, list_end;
   std::vector<Symbol> lists;  // present symbols of every cell
   std::vector<Entry> entries;
   std::vector<Back> backs;

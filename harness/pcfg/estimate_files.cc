@@ -8,6 +8,7 @@
 
 #include "evaluator/bracket_io.h"
 #include "evaluator/errors.h"
+#include "evaluator/file_text.h"
 
 namespace treegate::pcfg {
 namespace {
@@ -66,8 +67,7 @@ void add_treebank_file(Estimator& estimator, const std::string& path,
     add_from_stream(estimator, std::cin, "<stdin>", false, errors);
     return;
   }
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path + ": cannot open file for reading");
+  std::ifstream in = open_input_file(path);
   add_from_stream(estimator, in, path, true, errors);
 }
 

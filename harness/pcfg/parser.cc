@@ -212,11 +212,12 @@ class Filler {
 void prepare(Chart& c, const CompiledGrammar& g, std::size_t n) {
   c.n = n;
   const std::size_t cells = n * (n + 1) / 2;
+  // Grown, never zero-filled (chart.h): close() writes every cell before it is read.
   c.right_bits.resize(std::max(c.right_bits.size(), cells * g.right_words()));
   c.right_slot.resize(std::max(c.right_slot.size(), cells * g.num_right()));
-  c.scale.assign(cells, 0.0);
-  c.list_begin.assign(cells, 0);
-  c.list_end.assign(cells, 0);
+  c.scale.resize(std::max(c.scale.size(), cells));
+  c.list_begin.resize(std::max(c.list_begin.size(), cells));
+  c.list_end.resize(std::max(c.list_end.size(), cells));
   c.lists.clear();
   c.entries.clear();
   c.backs.clear();
@@ -285,6 +286,7 @@ ParseResult Parser::parse(const std::vector<std::string>& words,
     c.lex[i] = lexical_entries(g, words, tags, options, i);
     fill.start_cell();
     for (const LexEntry& e : c.lex[i]) fill.lexical(i, e.symbol, e.logp, e.p);
+    c.scale[c.cell(i, i + 1)] = 0;  // binary() sets the scale of longer spans
     fill.close(c.cell(i, i + 1));
   }
   const std::size_t dense = c.right_slot.size() * sizeof(std::uint32_t) + c.right_bits.size() * 8;

@@ -31,5 +31,8 @@ TEST_CASE("read_file_text: whole files, pipes, and a clear message for a missing
                     ((dir / "none.yaml").string() + ": cannot open file for reading").c_str());
   CHECK_THROWS_WITH(treegate::read_file_text(dir.string()),
                     (dir.string() + ": is a folder; expected a file").c_str());
+  CHECK_THROWS_WITH(treegate::open_input_file(dir.string()),
+                    (dir.string() + ": is a folder; expected a file").c_str());
+  CHECK(treegate::open_input_file((dir / "a.bin").string()).get() == 'x');
   fs::remove_all(dir);
 }
