@@ -84,14 +84,28 @@ TEST_CASE("suite loader: whole-file problems throw with a position") {
                     doctest::Contains("refusing '/etc/*'"));
 }
 
-TEST_CASE("suite loader: treebank cases get <stem>:<n> ids and bad trees stay errors") {
+namespace {
+
+// A fresh temp folder with `s.yaml` and `held/part.trees`; returns the folder.
+std::filesystem::path suite_folder(const std::string& name, const std::string& suite_yaml,
+                                   const std::string& trees) {
   namespace fs = std::filesystem;
-  const auto dir = fs::temp_directory_path() / "tg_suite_tb";
+  const auto dir = fs::temp_directory_path() / name;
   fs::remove_all(dir);
   fs::create_directories(dir / "held");
-  std::ofstream(dir / "held" / "part.trees") << "(S (NN a))\n(S NN b))\n(S (NN c))\n";
-  std::ofstream(dir / "s.yaml") << "suite: held\ntreebank:\n  - files: held/*.trees\n"
-                                   "    constructions: [ordinary]\n";
+  std::ofstream(dir / "held" / "part.trees") << trees;
+  std::ofstream(dir / "s.yaml") << suite_yaml;
+  return dir;
+}
+
+}  // namespace
+
+TEST_CASE("suite loader: treebank cases get <stem>:<n> ids and bad trees stay errors") {
+  namespace fs = std::filesystem;
+  const auto dir = suite_folder("tg_suite_tb",
+                                "suite: held\ntreebank:\n  - files: held/*.trees\n"
+                                "    constructions: [ordinary]\n",
+                                "(S (NN a))\n(S NN b))\n(S (NN c))\n");
   const ts::Suite s = ts::load_suite((dir / "s.yaml").string());
   REQUIRE(s.cases.size() == 3);
   CHECK(s.cases[0].id == "part:1");
@@ -105,14 +119,12 @@ TEST_CASE("suite loader: treebank cases get <stem>:<n> ids and bad trees stay er
 
 TEST_CASE("suite loader: each case goes to the sink as it is read, and stays where it is") {
   namespace fs = std::filesystem;
-  const auto dir = fs::temp_directory_path() / "tg_suite_sink";
-  fs::remove_all(dir);
-  fs::create_directories(dir / "held");
-  std::ofstream(dir / "held" / "part.trees") << "(S (NN c))\n(S (NN d))\n(S (NN e))\n";
-  std::ofstream(dir / "s.yaml") << "suite: mixed\nconstructions: [t]\ncases:\n"
-                                   "  - {id: a, tree: \"(S (NN a))\"}\n"
-                                   "  - {id: b, tree: \"(S (NN b))\"}\n"
-                                   "treebank:\n  - files: held/*.trees\n";
+  const auto dir = suite_folder("tg_suite_sink",
+                                "suite: mixed\nconstructions: [t]\ncases:\n"
+                                "  - {id: a, tree: \"(S (NN a))\"}\n"
+                                "  - {id: b, tree: \"(S (NN b))\"}\n"
+                                "treebank:\n  - files: held/*.trees\n",
+                                "(S (NN c))\n(S (NN d))\n(S (NN e))\n");
   ts::Suite s;
   std::vector<const ts::Case*> seen;
   std::vector<std::size_t> positions;
