@@ -111,13 +111,14 @@ int run_run(int argc, char** argv) {
     results::RunResults& run = outcome.results;
     const std::string header = results::header_line(run.header);
     run.header = results::parse_header_line(header, "(this run)", 1);
-    const std::string text = header + "\n" + outcome.case_lines;
     const run::RunSummary summary = run::summarize(run, o.baseline.empty() ? nullptr : &baseline);
     report::ConsoleOptions console;
     console.color = isatty(STDOUT_FILENO) && std::getenv("NO_COLOR") == nullptr;
     console.timings = req.timings;
     std::cout << report::console_summary(run, summary, console) << std::flush;
-    if (!o.results.empty()) results::write_file_atomically(o.results, text);
+    if (!o.results.empty()) {
+      results::write_file_atomically(o.results, {header, "\n", outcome.case_lines});
+    }
     report::write_outputs(run, summary, {o.junit, o.summary_json});
     if (!o.html.empty()) {
       report::html::write_run_report(o.html, run, o.baseline.empty() ? nullptr : &baseline,

@@ -32,6 +32,10 @@ std::string folder_of(const std::string& path) {
 }  // namespace
 
 void write_file_atomically(const std::string& path, const std::string& text) {
+  write_file_atomically(path, std::vector<std::string_view>{text});
+}
+
+void write_file_atomically(const std::string& path, const std::vector<std::string_view>& pieces) {
   const auto slash = path.rfind('/');
   const std::string base = slash == std::string::npos ? path : path.substr(slash + 1);
   std::string tmp = (slash == std::string::npos ? std::string() : path.substr(0, slash + 1)) + "." +
@@ -46,20 +50,22 @@ void write_file_atomically(const std::string& path, const std::string& text) {
     std::lock_guard lock(pending_mutex);
     pending().erase(tmp);
   };
-  const char* p = text.data();
-  std::size_t left = text.size();
-  while (left > 0) {
-    const ssize_t n = ::write(fd, p, left);
-    if (n < 0 && errno == EINTR) continue;
-    if (n <= 0) {
-      const std::string why = std::strerror(errno);
-      ::close(fd);
-      ::unlink(tmp.c_str());
-      forget();
-      fail(path, why);
+  for (const std::string_view piece : pieces) {
+    const char* p = piece.data();
+    std::size_t left = piece.size();
+    while (left > 0) {
+      const ssize_t n = ::write(fd, p, left);
+      if (n < 0 && errno == EINTR) continue;
+      if (n <= 0) {
+        const std::string why = std::strerror(errno);
+        ::close(fd);
+        ::unlink(tmp.c_str());
+        forget();
+        fail(path, why);
+      }
+      p += n;
+      left -= static_cast<std::size_t>(n);
     }
-    p += n;
-    left -= static_cast<std::size_t>(n);
   }
   (void)::fchmod(fd, 0644);
   const bool synced = ::fsync(fd) == 0;
