@@ -37,10 +37,28 @@ std::uint32_t match(std::vector<Bracket>& gold, std::vector<Bracket>& test) {
   return matched;
 }
 
-// Range maximum over positions 0..n-1 (an iterative segment tree), for count_crossing.
+// Sorts brackets that come nearly in order (see collect_brackets): insertion sort while it
+// stays cheap, std::sort for whatever is left when it does not.
+void sort_nearly_sorted(std::vector<Bracket>& b) {
+  std::size_t budget = 4 * b.size() + 16;  // element moves before giving up
+  for (std::size_t i = 1; i < b.size(); ++i) {
+    if (!(b[i] < b[i - 1])) continue;
+    const Bracket x = b[i];
+    std::size_t j = i;
+    for (; j > 0 && x < b[j - 1] && budget > 0; --j, --budget) b[j] = b[j - 1];
+    b[j] = x;
+    if (budget == 0) {
+      std::sort(b.begin(), b.end());
+      return;
+    }
+  }
+}
+
+// Range maximum over positions 0..n-1 (an iterative segment tree), for count_crossing. Uses
+// storage owned by the caller, so that scoring a sentence allocates nothing.
 class RangeMax {
  public:
-  explicit RangeMax(std::size_t n) : n_(n), t_(2 * n, INT64_MIN) {}
+  RangeMax(std::size_t n, std::int64_t* t) : n_(n), t_(t) { std::fill_n(t_, 2 * n, INT64_MIN); }
   void raise(std::size_t i, std::int64_t v) { t_[n_ + i] = std::max(t_[n_ + i], v); }
   void build() {
     for (std::size_t i = n_; i-- > 1;) t_[i] = std::max(t_[2 * i], t_[2 * i + 1]);
@@ -56,18 +74,20 @@ class RangeMax {
 
  private:
   std::size_t n_;
-  std::vector<std::int64_t> t_;
+  std::int64_t* t_;
 };
 
 // Test bracket [a,b) crosses gold [c,d) when a<c<b<d or c<a<d<b (see crosses()). So it crosses
 // some gold bracket when one starting inside (a,b) ends after b, or one ending inside (a,b)
 // starts before a: two range-maximum queries, O((gold + test) log n), never gold x test.
-std::uint32_t count_crossing(const std::vector<Bracket>& gold, const std::vector<Bracket>& test) {
+std::uint32_t count_crossing(const std::vector<Bracket>& gold, const std::vector<Bracket>& test,
+                             std::vector<std::int64_t>& scratch) {
   if (gold.empty() || test.empty()) return 0;
   std::size_t n = 1;
   for (const Bracket& g : gold) n = std::max<std::size_t>(n, g.end + 1);
   for (const Bracket& t : test) n = std::max<std::size_t>(n, t.end + 1);
-  RangeMax end_by_start(n), minus_start_by_end(n);
+  if (scratch.size() < 4 * n) scratch.resize(4 * n);
+  RangeMax end_by_start(n, scratch.data()), minus_start_by_end(n, scratch.data() + 2 * n);
   for (const Bracket& g : gold) {
     end_by_start.raise(g.start, g.end);
     minus_start_by_end.raise(g.end, -static_cast<std::int64_t>(g.start));
@@ -160,6 +180,8 @@ void Scorer::collect_brackets(const Tree& tree, const std::vector<std::int32_t>&
   start.assign(n, INT_MAX);
   end.assign(n, -1);
   // Children always have larger ids than their parents, so one backward pass is post-order.
+  // Trees read from text number their nodes in pre-order, so the brackets come out in reverse
+  // order of (start, wider first): reversed, only labels of equal spans may be out of order.
   for (std::size_t i = n; i-- > 0;) {
     const Node& node = tree.node(static_cast<NodeId>(i));
     if (node.is_leaf()) {
@@ -182,7 +204,8 @@ void Scorer::collect_brackets(const Tree& tree, const std::vector<std::int32_t>&
       end[p] = std::max(end[p], end[i]);
     }
   }
-  std::sort(out.begin(), out.end());
+  std::reverse(out.begin(), out.end());
+  sort_nearly_sorted(out);
 }
 
 std::vector<Bracket> Scorer::brackets_of(const Tree& tree) {
@@ -266,7 +289,7 @@ SentenceScore Scorer::score(const Tree& gold, const Tree& test, BracketSets* set
   collect_brackets(test, tpos, b.test);
   s.test_brackets = static_cast<std::uint32_t>(b.test.size());
   s.matched = match(b.gold, b.test);
-  s.crossing = count_crossing(b.gold, b.test);
+  s.crossing = count_crossing(b.gold, b.test, crossing_scratch_);
   return s;
 }
 

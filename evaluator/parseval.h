@@ -88,6 +88,7 @@ class Scorer {
   // Scratch space reused from sentence to sentence.
   Words gold_words_, test_words_;
   std::vector<std::int32_t> gold_pos_, kept_pos_, test_pos_, start_, end_;
+  std::vector<std::int64_t> crossing_scratch_;
 };
 
 }  // namespace treegate

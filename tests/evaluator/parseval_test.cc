@@ -244,3 +244,45 @@ TEST_CASE("properties over random trees") {
     CHECK(a.exact == b.exact);
   }
 }
+
+TEST_CASE("brackets come out sorted whatever order the tree's nodes were added in") {
+  // The same tree twice: nodes added depth-first (pre-order ids, as the reader does), and
+  // constituents breadth-first (ids in level order) with the words added last, in yield
+  // order. The scorer relies on pre-order ids only for speed.
+  std::mt19937 rng(7);
+  const Tree depth_first = parse_tree(random_tree(rng, 150));  // with unary chains
+  Tree breadth_first;
+  std::vector<NodeId> new_id(depth_first.size(), kNoNode);
+  std::vector<NodeId> queue{depth_first.root()};
+  for (std::size_t q = 0; q < queue.size(); ++q) {
+    const NodeId old_id = queue[q];
+    const Node& n = depth_first.node(old_id);
+    const NodeId parent =
+        n.parent == kNoNode ? kNoNode : new_id[static_cast<std::size_t>(n.parent)];
+    new_id[static_cast<std::size_t>(old_id)] =
+        breadth_first.add_node(depth_first.label(old_id), parent);
+    for (NodeId c = n.first_child; c != kNoNode; c = depth_first.node(c).next_sibling) {
+      if (!depth_first.node(c).is_leaf()) queue.push_back(c);
+    }
+  }
+  for (std::size_t i = 0; i < depth_first.size(); ++i) {  // leaves in id order = yield order
+    const Node& n = depth_first.node(static_cast<NodeId>(i));
+    if (n.is_leaf()) {
+      breadth_first.add_leaf(depth_first.word(static_cast<std::size_t>(n.word)),
+                             new_id[static_cast<std::size_t>(n.parent)]);
+    }
+  }
+  REQUIRE(to_bracketed(breadth_first) == to_bracketed(depth_first));
+  Scorer scorer{Scheme{}};
+  const std::vector<Bracket> a = scorer.brackets_of(depth_first);
+  const std::vector<Bracket> b = scorer.brackets_of(breadth_first);
+  CHECK(a.size() > 100);
+  CHECK(std::is_sorted(a.begin(), a.end()));
+  CHECK(std::is_sorted(b.begin(), b.end()));
+  REQUIRE(a.size() == b.size());
+  for (std::size_t i = 0; i < a.size(); ++i) {
+    CHECK(a[i].label == b[i].label);
+    CHECK(a[i].start == b[i].start);
+    CHECK(a[i].end == b[i].end);
+  }
+}
