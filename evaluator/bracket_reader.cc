@@ -33,11 +33,17 @@ struct Open {
   std::size_t line, col;
 };
 
+// The stream of a reader over text in memory: never read (refill() checks `in_memory`).
+std::istream& no_stream() {
+  static std::istringstream empty;
+  return empty;
+}
+
 }  // namespace
 
 struct BracketReader::Impl {
-  std::istringstream none;  // the stream of a reader over text in memory: empty
   std::istream& in;
+  bool in_memory = false;
   std::string source;
   LabelTable& labels;
   ReadLimits limits;
@@ -63,10 +69,10 @@ struct BracketReader::Impl {
       : in(i), source(std::move(s)), labels(l), limits(lim) {}
   // Over text in memory: the whole text is the first chunk, and refill() finds the end.
   Impl(std::string_view text, std::string s, LabelTable& l, ReadLimits lim)
-      : in(none), source(std::move(s)), labels(l), limits(lim), buf(text) {}
+      : in(no_stream()), in_memory(true), source(std::move(s)), labels(l), limits(lim), buf(text) {}
 
   bool refill() {
-    if (&in == &none) {  // in memory: all of the text was the first chunk
+    if (in_memory) {  // all of the text was the first chunk
       buf.clear();
       pos = 0;
       return false;

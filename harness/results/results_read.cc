@@ -1,9 +1,7 @@
 // Reading the results file: one JSON object per line; errors name file:line:col.
 #include <algorithm>
-#include <fstream>
 #include <map>
 #include <nlohmann/json.hpp>
-#include <sstream>
 
 #include "evaluator/errors.h"
 #include "evaluator/file_text.h"
@@ -15,13 +13,6 @@ namespace treegate::results {
 namespace {
 
 using json = nlohmann::json;
-
-template <class T>
-std::optional<T> opt(const json& j, const char* key) {
-  const json& v = j.at(key);
-  if (v.is_null()) return std::nullopt;
-  return v.get<T>();
-}
 
 Header read_header(const json& j) {
   Header h;

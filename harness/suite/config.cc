@@ -1,8 +1,6 @@
 #include "harness/suite/config.h"
 
 #include <filesystem>
-#include <fstream>
-#include <sstream>
 
 #include "evaluator/errors.h"
 #include "evaluator/file_text.h"

@@ -2,8 +2,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <fstream>
-#include <sstream>
 
 #include "evaluator/errors.h"
 #include "evaluator/file_text.h"
