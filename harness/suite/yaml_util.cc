@@ -99,8 +99,9 @@ std::vector<YAML::Node> read_keys(const std::string& file, const YAML::Node& nod
     const std::string& key = kv.first.Scalar();
     const auto at = std::find(known.begin(), known.end(), key);
     if (at == known.end()) fail_unknown_key(file, kv.first, known, what);
-    values[static_cast<std::size_t>(at - known.begin())].reset(
-        kv.second);  // rebinds; `=` would assign into it
+    YAML::Node& value = values[static_cast<std::size_t>(at - known.begin())];
+    if (value) fail_at(file, kv.first, "key '" + key + "' given twice in " + what);
+    value.reset(kv.second);  // rebinds; `=` would assign into it
   }
   return values;
 }

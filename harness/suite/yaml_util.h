@@ -20,8 +20,8 @@ YAML::Node load_string(const std::string& text, const std::string& source);
 /// The known key nearest to `key` by edit distance, or "" when none is close.
 std::string nearest(const std::string& key, const std::vector<std::string>& known);
 
-/// Requires `node` to be a map whose keys are all in `known`; otherwise an InputError
-/// naming the key, its position and the nearest known key.
+/// Requires `node` to be a map whose keys are all in `known`, each once; otherwise an
+/// InputError naming the key, its position and (when unknown) the nearest known key.
 void check_keys(const std::string& file, const YAML::Node& node,
                 const std::vector<std::string>& known, const std::string& what);
 

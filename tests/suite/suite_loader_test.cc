@@ -67,6 +67,18 @@ TEST_CASE("suite loader: good cases load, each bad case keeps its own error") {
   CHECK(s.hash.size() == 16);
 }
 
+TEST_CASE("suite loader: a key given twice is an error at its second place") {
+  const ts::Suite s = ts::load_suite_string(
+      "suite: twice\ncases:\n  - id: a\n    tree: \"(S (NN a))\"\n    tree: \"(S (NN b))\"\n"
+      "  - id: b\n    tree: \"(S (NN b))\"\n",
+      "t.yaml");
+  REQUIRE(s.cases.size() == 2);
+  CHECK(s.cases[0].load_error == "t.yaml:5:5: key 'tree' given twice in a case");
+  CHECK(s.cases[1].load_error.empty());  // the other case still runs
+  CHECK_THROWS_WITH(ts::load_suite_string("suite: x\nsuite: y\ncases: []\n", "t.yaml"),
+                    "t.yaml:2:1: key 'suite' given twice in a suite");
+}
+
 TEST_CASE("suite loader: whole-file problems throw with a position") {
   CHECK_THROWS_WITH(ts::load_suite_string("about: x\ncases: []\n", "s.yaml"),
                     "s.yaml:1:1: expected `suite:` (the suite's name)");
