@@ -4,6 +4,7 @@
 
 #include "evaluator/bracket_io.h"
 #include "evaluator/errors.h"
+#include "evaluator/file_text.h"
 
 namespace treegate {
 namespace {
@@ -287,8 +288,7 @@ Tree parse_tree(std::string_view text, const std::string& source, LabelTable& la
 }
 
 std::vector<Tree> read_tree_file(const std::string& path, LabelTable& labels) {
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path + ": cannot open file for reading");
+  std::ifstream in = open_input_file(path);
   BracketReader reader(in, path, labels);
   std::vector<Tree> trees;
   Tree tree(labels);

@@ -6,6 +6,7 @@
 
 #include "evaluator/bracket_io.h"
 #include "evaluator/errors.h"
+#include "evaluator/file_text.h"
 #include "harness/cli/command.h"
 #include "harness/pcfg/batch.h"
 
@@ -89,10 +90,7 @@ int run_parse(int argc, char** argv) {
   try {
     grammar = pcfg::load_compiled_grammar(grammar_file);
     std::ifstream file;
-    if (input != "-") {
-      file.open(input, std::ios::binary);
-      if (!file) return fail("parse", input + ": cannot open file for reading");
-    }
+    if (input != "-") file = open_input_file(input);
     std::istream& in = input == "-" ? std::cin : file;
     std::size_t number = 0;
     for (std::string line; std::getline(in, line);)

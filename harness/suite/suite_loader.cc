@@ -162,8 +162,7 @@ std::vector<std::string> glob_files(const std::string& pattern) {
 void read_treebank_file(const std::string& path, const std::vector<std::string>& tags, Suite& suite,
                         std::set<std::string>& ids, const CaseSink& sink) {
   suite.hash += hash_file(path);  // combined with the suite text's hash by the caller
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path + ": cannot open file for reading");
+  std::ifstream in = open_input_file(path);
   const std::string stem = fs::path(path).stem().string();
   BracketReader reader(in, path);
   for (;;) {
